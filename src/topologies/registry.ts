@@ -1,0 +1,18 @@
+/** Every topology Straddle evaluates, by id. Adding one = one file + one line here. */
+import type { TopologyId } from '../engine/types.ts';
+import { sepic } from './sepic.ts';
+import { sepicCoupled } from './sepic-coupled.ts';
+import { sepicDamped } from './sepic-damped.ts';
+import type { Topology } from './topology.ts';
+
+const ALL: Topology[] = [sepic, sepicCoupled, sepicDamped];
+
+export const TOPOLOGIES: ReadonlyMap<TopologyId, Topology> = new Map(ALL.map((t) => [t.id, t]));
+
+export function topologyIds(): TopologyId[] {
+  return [...TOPOLOGIES.keys()];
+}
+
+export function getTopology(id: string): Topology | undefined {
+  return TOPOLOGIES.get(id as TopologyId);
+}

@@ -1,0 +1,226 @@
+/**
+ * SEPIC power stage shared by the separate-inductor, coupled-inductor and damped variants.
+ *
+ * Nodes: A = switch node (L1, Q1 drain, Cs), B = Cs / L2 / rectifier anode. iL1 flows from the input
+ * into A; iL2 flows from ground up through L2 into B; the coupling capacitor voltage is V(A) − V(B).
+ * CCM relations (Erickson & Maksimović, Fundamentals of Power Electronics, 2nd ed., 2001, ch. 2 and
+ * problem 2.x; common practice):
+ *   charge balance on Cs: (1−D)·IL1 = D·IL2; at the output: (1−D)·(IL1+IL2) = Iout ⇒ IL2 = Iout,
+ *   IL1 = Iout·D/(1−D); ideal D = Vout/(Vin+Vout); VCs = Vin; switch and rectifier block Vin+Vout.
+ * With drops (switch + sense Rq, rectifier Vd, winding R1, R2), volt-second balance on both inductors
+ * gives (derived here, averaged model):
+ *   D/(1−D) = (Vout + Vd + IL2·R2) / (Vin − IL1·R1 − Isw·Rq),  Isw = IL1 + IL2
+ *   VCs = [(1−D)(Vout+Vd) + IL2·R2 + D·Isw·Rq] / D
+ * solved by fixed-point iteration (currents depend on D).
+ * Coupled windings (L1 = L2 = L, M = k·L): v1 = L·di1/dt + M·di2/dt, v2 = M·di1/dt + L·di2/dt, so
+ * di1/dt = (L2·v1 − M·v2)/(L1·L2 − M²); with v1 = v2 each winding ramps at v/(L+M): about half the
+ * inductance per winding gives the separate design's ripple when k → 1 (common practice).
+ */
+import type { Design } from '../engine/design.ts';
+import type { WaveSet } from '../engine/wave.ts';
+import type { RectifierKind } from '../engine/types.ts';
+import type { ComponentSpec, OperatingScalars } from './topology.ts';
+
+export type SepicVariant = 'separate' | 'coupled' | 'damped';
+
+export function sepicComponents(variant: SepicVariant, rect: RectifierKind): ComponentSpec[] {
+  const coupled = variant === 'coupled';
+  const list: ComponentSpec[] = [
+    { name: 'Q1', role: 'switch', duty: 'main switch (low side)', sizing: { kind: 'switch' } },
+    { name: 'Rsense', role: 'sense', duty: 'current-sense resistor in the switch source', sizing: { kind: 'sense', of: 'Q1' } },
+    rect === 'diode'
+      ? { name: 'D1', role: 'diode', duty: 'output rectifier', sizing: { kind: 'diode' } }
+      : { name: 'Q2', role: 'sync', duty: 'synchronous output rectifier', sizing: { kind: 'sync' } },
+    coupled
+      ? { name: 'L1', role: 'coupled-inductor', duty: 'input winding of the coupled inductor', sizing: { kind: 'inductor' } }
+      : { name: 'L1', role: 'inductor', duty: 'input inductor', sizing: { kind: 'inductor' } },
+    coupled
+      ? { name: 'L2', role: 'coupled-inductor', duty: 'output winding of the coupled inductor (same part as L1)', sizing: { kind: 'winding', of: 'L1' } }
+      : { name: 'L2', role: 'inductor', duty: 'inductor to ground', sizing: { kind: 'inductor' } },
+    { name: 'Cs', role: 'capacitor', duty: 'coupling capacitor', sizing: { kind: 'capacitor', ripple: 'coupling' } },
+    { name: 'Cin', role: 'capacitor', duty: 'input capacitor', sizing: { kind: 'capacitor', ripple: 'input' } },
+    { name: 'Cout', role: 'capacitor', duty: 'output capacitor', sizing: { kind: 'capacitor', ripple: 'output' } },
+    { name: 'U1', role: 'controller', duty: 'current-mode controller', sizing: { kind: 'controller' } },
+  ];
+  if (variant === 'damped') {
+    list.push(
+      { name: 'Cd', role: 'damping-capacitor', duty: 'damping-leg capacitor (electrolytic) across Cs', sizing: { kind: 'damping-capacitor', of: 'Cs' } },
+      { name: 'Rd', role: 'damping-resistor', duty: 'damping-leg resistor in series with Cd', sizing: { kind: 'damping-resistor', of: 'Cs' } },
+    );
+  }
+  return list;
+}
+
+/** Fixed component slots (same order as sepicComponents). */
+const Q1 = 0;
+const RS = 1;
+const RECT = 2;
+const L1 = 3;
+const L2 = 4;
+const CS = 5;
+const CIN = 6;
+const COUT = 7;
+const U1 = 8;
+const CD = 9;
+const RD = 10;
+
+/** Ripple (A peak-to-peak) of two windings over one interval of length t with winding voltages v1, v2. */
+export function windingRipples(d: Design, v1: number, v2: number, t: number, out: { r1: number; r2: number }): void {
+  const l1 = d.parts[L1].value;
+  const l2 = d.parts[L2].value;
+  const k = d.coupling;
+  if (k <= 0) {
+    out.r1 = (v1 * t) / l1;
+    out.r2 = (v2 * t) / l2;
+    return;
+  }
+  const m = k * Math.sqrt(l1 * l2);
+  const det = l1 * l2 - m * m;
+  if (det <= 1e-9 * l1 * l2) {
+    // perfectly coupled limit: both windings carry the same ripple, set by the mean voltage
+    const r = (0.5 * (v1 + v2) * t) / (l1 + m);
+    out.r1 = r;
+    out.r2 = r;
+    return;
+  }
+  out.r1 = ((l2 * v1 - m * v2) * t) / det;
+  out.r2 = ((l1 * v2 - m * v1) * t) / det;
+}
+
+const rip = { r1: 0, r2: 0 };
+
+export function operateSepic(
+  d: Design,
+  variant: SepicVariant,
+  vin: number,
+  iout: number,
+  w: WaveSet,
+  s: OperatingScalars,
+): void {
+  const p = d.parts;
+  const vout = Math.abs(d.voutV);
+  const fsw = d.params.fswHz;
+  const T = 1 / fsw;
+  const rq = p[Q1].ronOhm + p[RS].value;
+  const sync = d.params.rect === 'sync';
+  const vf = sync ? 0 : p[RECT].vfV;
+  const rr = sync ? p[RECT].ronOhm : p[RECT].rdOhm;
+  const r1 = p[L1].dcrOhm;
+  const r2 = p[L2].dcrOhm;
+
+  // duty with drops: fixed point on D/(1−D) = (Vout + Vd + IL2·R2) / (Vin − IL1·R1 − Isw·Rq)
+  let D = vout / (vin + vout);
+  let converged = false;
+  for (let it = 0; it < 50; it++) {
+    const isw = iout / (1 - D);
+    const il1 = isw - iout;
+    const den = vin - il1 * r1 - isw * rq;
+    if (den <= 0) break;
+    const x = (vout + vf + rr * isw + iout * r2) / den;
+    const next = x / (1 + x);
+    if (Math.abs(next - D) < 1e-12) {
+      D = next;
+      converged = true;
+      break;
+    }
+    D = next;
+    if (D >= 0.999) break;
+  }
+  const Dp = 1 - D;
+  const il2 = iout;
+  const il1 = (iout * D) / Dp;
+  const isw = il1 + il2;
+  const vd = vf + rr * isw;
+  const vcs = (Dp * (vout + vd) + il2 * r2 + D * isw * rq) / D;
+
+  // on-state winding voltages; off-state follows from volt-second balance
+  const v1on = vin - il1 * r1 - isw * rq;
+  const v2on = vcs - isw * rq - il2 * r2;
+  windingRipples(d, v1on, v2on, D * T, rip);
+  let dI1 = rip.r1;
+  let dI2 = rip.r2;
+  let mode: 'ccm' | 'dcm' = 'ccm';
+  let d2 = Dp;
+
+  // Diode rectifier: the rectifier current iL1 + iL2 must stay positive, else DCM.
+  const sumValley = il1 + il2 - 0.5 * (dI1 + dI2);
+  if (!sync && sumValley < 0) {
+    mode = 'dcm';
+    // DCM of the buck-boost family: during D the summed current rises by ΣΔ = v·D·T/Le, during D2 it
+    // falls to zero; Iout = ½·ΣΔ·D2 with D2 = D·v1on/(Vout+Vd) (Erickson & Maksimović ch. 5: D = √K·M).
+    const vo = vout + vf;
+    windingRipples(d, vin, vin, T, rip); // slopes per unit on-time at ideal on-state voltages
+    const sumPerD = rip.r1 + rip.r2;
+    D = Math.sqrt((2 * iout * vo) / (sumPerD * vin));
+    d2 = (D * vin) / vo;
+    windingRipples(d, vin, vin, D * T, rip);
+    dI1 = rip.r1;
+    dI2 = rip.r2;
+  }
+  s.duty = D;
+  s.duty2 = 0;
+  s.mode = mode;
+  s.converged = converged || mode === 'dcm';
+
+  if (mode === 'ccm') {
+    const a1 = il1 - dI1 / 2;
+    const b1 = il1 + dI1 / 2;
+    const a2 = il2 - dI2 / 2;
+    const b2 = il2 + dI2 / 2;
+    s.iinA = il1;
+    w.set2(L1, D, a1, b1, b1, a1);
+    w.set2(L2, D, a2, b2, b2, a2);
+    w.set2(Q1, D, a1 + a2, b1 + b2, 0, 0);
+    w.set2(RS, D, a1 + a2, b1 + b2, 0, 0);
+    w.set2(RECT, D, 0, 0, b1 + b2, a1 + a2);
+    w.set2(CS, D, -a2, -b2, b1, a1);
+    w.set2(CIN, D, -dI1 / 2, dI1 / 2, dI1 / 2, -dI1 / 2);
+    w.set2(COUT, D, -iout, -iout, b1 + b2 - iout, a1 + a2 - iout);
+    w.setEdges(Q1, a1 + a2, b1 + b2, vcs + vout + vd);
+    w.setEdges(RECT, a1 + a2, b1 + b2, vcs + vout - isw * rq);
+  } else {
+    // three intervals: D (switch), d2 (rectifier), d3 (idle, iL1 = −iL2 = i0)
+    const d3 = Math.max(0, 1 - D - d2);
+    const f = { d0: D, d1: d2, d2: d3 };
+    // offsets from the known averages: avg(iL2) = Iout, iL1 + iL2 = 0 while idle
+    const shapeAvg2 = dI2 * 0.5 * (D + d2);
+    const i0 = shapeAvg2 - iout; // iL1 during idle; iL2 = −i0
+    const shapeAvg1 = dI1 * 0.5 * (D + d2);
+    const il1dcm = i0 + shapeAvg1;
+    s.iinA = il1dcm;
+    w.set3(L1, f, i0, i0 + dI1, i0 + dI1, i0, i0, i0);
+    w.set3(L2, f, -i0, -i0 + dI2, -i0 + dI2, -i0, -i0, -i0);
+    const pk = dI1 + dI2;
+    w.set3(Q1, f, 0, pk, 0, 0, 0, 0);
+    w.set3(RS, f, 0, pk, 0, 0, 0, 0);
+    w.set3(RECT, f, 0, 0, pk, 0, 0, 0);
+    w.set3(CS, f, i0, i0 - dI2, i0 + dI1, i0, i0, i0);
+    w.set3(CIN, f, i0 - il1dcm, i0 + dI1 - il1dcm, i0 + dI1 - il1dcm, i0 - il1dcm, i0 - il1dcm, i0 - il1dcm);
+    w.set3(COUT, f, -iout, -iout, pk - iout, -iout, -iout, -iout);
+    w.setEdges(Q1, 0, pk, vin + vout);
+    w.setEdges(RECT, 0, 0, vin + vout);
+  }
+  w.setDc(U1, 0);
+  w.setVoltage(Q1, vcs + vout + vd, 0);
+  w.setVoltage(RS, 0, 0);
+  w.setVoltage(RECT, vcs + vout, 0);
+  w.setVoltage(L1, Math.max(Math.abs(v1on), vcs + vout + vd - vin), 0);
+  w.setVoltage(L2, Math.max(Math.abs(v2on), vout + vd), 0);
+  w.setVoltage(CS, vcs, vcs);
+  w.setVoltage(CIN, vin, vin);
+  w.setVoltage(COUT, vout, vout);
+  w.setVoltage(U1, vin, vin);
+
+  if (variant === 'damped') {
+    // The damping leg sees the coupling capacitor's ripple; at fsw Cd is nearly a short, so the
+    // leg current is about ΔVcs/Rd peak-to-peak, a triangle (common practice estimate).
+    const cs = p[CS].value;
+    const rd = p[RD].value;
+    const dv = cs > 0 ? (w.chargeSwing(CS) * T) / cs : 0;
+    const x = rd > 0 ? (0.5 * dv) / rd : 0;
+    w.set2(RD, D, -x, x, x, -x);
+    w.set2(CD, D, -x, x, x, -x);
+    w.setVoltage(CD, vcs, vcs);
+    w.setVoltage(RD, dv, 0);
+  }
+}

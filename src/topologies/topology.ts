@@ -1,0 +1,68 @@
+/**
+ * The one interface every topology implements. Adding a topology = one file implementing this and
+ * one line in src/topologies/registry.ts; the shared contract suite (test/topologies/contract.test.ts)
+ * then runs against it.
+ */
+import type { Design } from '../engine/design.ts';
+import type { WaveSet } from '../engine/wave.ts';
+import type { RailSpec } from '../spec/rail-spec.ts';
+import type { Caution, ComponentInfo, Mode, RectifierKind, TopologyId } from '../engine/types.ts';
+
+/** How the generic sizer chooses a component's value. */
+export type SizingRule =
+  | { kind: 'inductor' } // from the ripple ratio at the worst corner
+  | { kind: 'winding'; of: string } // second winding of a coupled inductor: same value as `of`
+  | { kind: 'capacitor'; ripple: 'output' | 'input' | 'coupling' | 'bus' }
+  | { kind: 'switch' }
+  | { kind: 'sync' }
+  | { kind: 'diode' }
+  | { kind: 'sense'; of: string } // sense resistor in series with component `of`
+  | { kind: 'damping-capacitor'; of: string } // damping leg across coupling capacitor `of`
+  | { kind: 'damping-resistor'; of: string }
+  | { kind: 'controller' };
+
+export interface ComponentSpec extends ComponentInfo {
+  sizing: SizingRule;
+}
+
+/** Scalars of one operating point that a topology writes beside the waveforms. */
+export interface OperatingScalars {
+  duty: number;
+  /**
+   * Second commanded duty where a second leg switches at this point (four-switch in its transition
+   * region: the buck leg; cascades: the second stage); 0 when there is none. Both duties are checked
+   * against the minimum on-time and off-time.
+   */
+  duty2: number;
+  mode: Mode;
+  /** Average current drawn from the input source by the power stage (A), from charge balance. */
+  iinA: number;
+  /** false when no steady state exists with the present drops (the duty iteration ran away). */
+  converged: boolean;
+}
+
+export interface Topology {
+  id: TopologyId;
+  title: string;
+  /** One paragraph for the candidate sheet: how it works and when it is used. */
+  summary: string;
+  /** +1 positive output, −1 inverting. */
+  outputSign: 1 | -1;
+  rectifiers: readonly RectifierKind[];
+  /** Stages that change mode with input (four-switch) get a corner at the input nearest the output. */
+  modeChanging: boolean;
+  /** Number of separate control loops (cascades: 2). */
+  loops: number;
+  /** The components, in a fixed order, for a rectifier choice. */
+  components(rect: RectifierKind): ComponentSpec[];
+  /** Candidate-level choices made before sizing (e.g. the bus voltage of a cascade). */
+  prepare?(design: Design, spec: RailSpec): void;
+  /**
+   * Steady state at one operating point: write every component's current waveform and peak/DC
+   * voltage into `waves`, and the scalars into `out`. Must not allocate. Voltages and currents use
+   * the design's present parasitics (drops included in the duty).
+   */
+  operate(design: Design, vinV: number, ioutA: number, waves: WaveSet, out: OperatingScalars): void;
+  /** Topology-specific cautions (resonant overshoot, RHP zero ...) for a sized design. */
+  cautions?(design: Design, spec: RailSpec, nominal: OperatingScalars): Caution[];
+}
