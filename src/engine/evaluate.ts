@@ -129,13 +129,31 @@ function scratchFor(n: number) {
   return s;
 }
 
+/**
+ * The allocation-free inner loop: steady state and losses of a sized design at one operating point,
+ * into caller-owned buffers. Returns the total loss (W). This is what the benchmark counts.
+ */
+export function operateWithLosses(
+  topology: Topology,
+  d: Design,
+  tech: Technology,
+  vinV: number,
+  ioutA: number,
+  w: WaveSet,
+  s: OperatingScalars,
+  perPart: Float64Array,
+  byKind: Float64Array,
+): number {
+  w.data.fill(0);
+  topology.operate(d, vinV, ioutA, w, s);
+  return computeLosses(d, tech, vinV, w, perPart, byKind);
+}
+
 export function evaluateCorner(topology: Topology, d: Design, tech: Technology, c: Corner): CornerDetail {
   const n = d.parts.length;
   const { w, per, kinds } = scratchFor(n);
   const s: OperatingScalars = newScalars();
-  w.data.fill(0);
-  topology.operate(d, c.vinV, c.ioutA, w, s);
-  const lossW = computeLosses(d, tech, c.vinV, w, per, kinds);
+  const lossW = operateWithLosses(topology, d, tech, c.vinV, c.ioutA, w, s, per, kinds);
   const T = 1 / d.params.fswHz;
   const components: Record<string, ComponentStress> = {};
   for (let k = 0; k < n; k++) {

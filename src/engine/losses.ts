@@ -8,7 +8,11 @@ import { type MosfetLoss, switchLoss, syncLoss } from '../parts/mosfet.ts';
 import type { Design } from './design.ts';
 import { MAX_SEGMENTS, type WaveSet } from './wave.ts';
 
-/** Loss kinds: conduction (in the averaged duty model), and the rest drawn from the input. */
+/**
+ * Loss kinds. `conduction` is exactly what the averaged duty solution carries as drops (segment-mean
+ * currents through resistances, Vf·Iavg); everything else, including the ripple part of I²R, is drawn
+ * from the input on top of it. The split lets the contract test check the duty solutions exactly.
+ */
 export const LOSS_KINDS = ['conduction', 'switching', 'gate', 'core', 'capacitor', 'other'] as const;
 export type LossKind = (typeof LOSS_KINDS)[number];
 export const K_COND = 0;
@@ -44,7 +48,7 @@ export function computeLosses(
     switch (p.role) {
       case 'switch': {
         switchLoss(p.ronOhm, p.qgC, p.qswC, p.qossC, p.ratedV, tech.mosfet.gateCurrentA, fsw, vinV, w.rms(k), w.iOn(k), w.iOff(k), w.vSw(k), mos);
-        byKind[K_COND] += mos.conductionW;
+        splitResistive(w, k, p.ronOhm, mos.conductionW, byKind);
         byKind[K_SW] += mos.switchingW;
         byKind[K_GATE] += mos.gateW;
         loss = mos.conductionW + mos.switchingW + mos.gateW;
@@ -55,7 +59,7 @@ export function computeLosses(
         syncLoss(p.ronOhm, p.qgC, p.qossC, p.ratedV, d.ideal ? 0 : tech.mosfet.bodyDiodeVfV, tech.mosfet.deadTimeS, fsw, vinV, iR, w.iOn(k), w.iOff(k), w.vSw(k), mos);
         // only the I²R part is inside the averaged duty model; dead-time diode loss is drawn extra
         const i2r = iR * iR * p.ronOhm;
-        byKind[K_COND] += i2r;
+        splitResistive(w, k, p.ronOhm, i2r, byKind);
         byKind[K_OTHER] += mos.conductionW - i2r;
         byKind[K_SW] += mos.switchingW;
         byKind[K_GATE] += mos.gateW;
@@ -67,7 +71,8 @@ export function computeLosses(
         const cond = p.vfV * Math.abs(w.average(k)) + p.rdOhm * iR * iR;
         const v = w.vSw(k);
         const cap = 0.5 * p.cjF * v * v * fsw;
-        byKind[K_COND] += cond;
+        byKind[K_COND] += p.vfV * Math.abs(w.average(k));
+        splitResistive(w, k, p.rdOhm, p.rdOhm * iR * iR, byKind);
         byKind[K_SW] += cap;
         loss = cond + cap;
         break;
@@ -76,7 +81,7 @@ export function computeLosses(
       case 'coupled-inductor': {
         const iR = w.rms(k);
         const cu = iR * iR * p.dcrOhm;
-        byKind[K_COND] += cu;
+        splitResistive(w, k, p.dcrOhm, cu, byKind);
         const core = p.coreM3 > 0 ? p.coreM3 * coreLossDensity(d, tech, w, k) : 0;
         byKind[K_CORE] += core;
         loss = cu + core;
@@ -92,7 +97,7 @@ export function computeLosses(
       case 'sense': {
         const iR = w.rms(k);
         loss = iR * iR * p.value;
-        byKind[K_COND] += loss;
+        splitResistive(w, k, p.value, loss, byKind);
         break;
       }
       case 'damping-resistor': {
@@ -111,6 +116,13 @@ export function computeLosses(
     total += loss;
   }
   return total;
+}
+
+/** Book an I²R loss: the segment-mean part as conduction, the ripple part as drawn extra. */
+function splitResistive(w: WaveSet, k: number, r: number, total: number, byKind: Float64Array): void {
+  const mean = r * w.meanSquareOfMeans(k);
+  byKind[K_COND] += mean;
+  byKind[K_OTHER] += total - mean;
 }
 
 /**

@@ -135,6 +135,21 @@ export class WaveSet {
     return Math.sqrt(s);
   }
 
+  /**
+   * Mean square of the segment means, Σ f·((a+b)/2)²: the part of I²R loss that an averaged model
+   * with resistive drops carries; rms² minus this is the ripple part Σ f·(b−a)²/12.
+   */
+  meanSquareOfMeans(k: number): number {
+    const o = k * WAVE_STRIDE;
+    const w = this.data;
+    let s = 0;
+    for (let j = 0; j < w[o]; j++) {
+      const m = 0.5 * (w[o + A + j] + w[o + B + j]);
+      s += w[o + F + j] * m * m;
+    }
+    return s;
+  }
+
   max(k: number): number {
     const o = k * WAVE_STRIDE;
     const w = this.data;
