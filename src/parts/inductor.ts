@@ -41,11 +41,18 @@ export function windingDcr(tech: Technology, copperM3: number, iRmsA: number): n
 }
 
 const kiCache = new Map<CoreMaterial, number>();
+let lastMaterial: CoreMaterial | undefined;
+let lastKi = 0;
 
 /** ki of the iGSE for a material, by numerical integration of |cos θ|^α (Simpson, 2000 panels). */
 export function igseKi(m: CoreMaterial): number {
+  if (m === lastMaterial) return lastKi;
   const cached = kiCache.get(m);
-  if (cached !== undefined) return cached;
+  if (cached !== undefined) {
+    lastMaterial = m;
+    lastKi = cached;
+    return cached;
+  }
   const n = 2000;
   const h = (2 * Math.PI) / n;
   let s = 0;
@@ -73,10 +80,14 @@ export function igseLossDensity(
 ): number {
   if (!(dBppT > 0) || m.k === 0) return 0;
   const ki = igseKi(m);
+  // Σ fⱼ·|ΔBⱼ·fsw/fⱼ|^α = Σ exp(ln fⱼ + α·ln|ΔBⱼ·fsw/fⱼ|): one log and one exp per segment
+  const a = m.alpha;
   let s = 0;
   for (let j = 0; j < n; j++) {
-    if (f[j] <= 0) continue;
-    s += f[j] * Math.abs((dB[j] * fswHz) / f[j]) ** m.alpha;
+    const fj = f[j];
+    const x = Math.abs(dB[j] * fswHz);
+    if (fj <= 0 || x === 0) continue;
+    s += Math.exp(Math.log(fj) + a * (Math.log(x) - Math.log(fj)));
   }
-  return ki * dBppT ** (m.beta - m.alpha) * s;
+  return ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
 }

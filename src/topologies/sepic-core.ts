@@ -11,7 +11,7 @@
  * gives (derived here, averaged model):
  *   D/(1−D) = (Vout + Vd + IL2·R2) / (Vin − IL1·R1 − Isw·Rq),  Isw = IL1 + IL2
  *   VCs = [(1−D)(Vout+Vd) + IL2·R2 + D·Isw·Rq] / D
- * solved by fixed-point iteration (currents depend on D).
+ * solved in closed form as a quadratic in 1/(1−D) (see operateSepic).
  * Coupled windings (L1 = L2 = L, M = k·L): v1 = L·di1/dt + M·di2/dt, v2 = M·di1/dt + L·di2/dt, so
  * di1/dt = (L2·v1 − M·v2)/(L1·L2 − M²); with v1 = v2 each winding ramps at v/(L+M): about half the
  * inductance per winding gives the separate design's ripple when k → 1 (common practice).
@@ -108,24 +108,19 @@ export function operateSepic(
   const r1 = p[L1].dcrOhm;
   const r2 = p[L2].dcrOhm;
 
-  // duty with drops: fixed point on D/(1−D) = (Vout + Vd + IL2·R2) / (Vin − IL1·R1 − Isw·Rq)
-  let D = vout / (vin + vout);
-  let converged = false;
-  for (let it = 0; it < 50; it++) {
-    const isw = iout / (1 - D);
-    const il1 = isw - iout;
-    const den = vin - il1 * r1 - isw * rq;
-    if (den <= 0) break;
-    const x = (vout + vf + rr * isw + iout * r2) / den;
-    const next = x / (1 + x);
-    if (Math.abs(next - D) < 1e-12) {
-      D = next;
-      converged = true;
-      break;
-    }
-    D = next;
-    if (D >= 0.999) break;
-  }
+  // Duty with drops. With u = 1/(1−D): Isw = Iout·u, IL1 = Iout·(u−1), and the balance above becomes
+  //   B·u² − (A + B − E)·u + (A + C) = 0,  A = Vin + Iout·R1, B = Iout·(R1 + Rq), C = Vout + Vf + Iout·R2,
+  //   E = rd·Iout (rectifier slope). The smaller root is the physical one (the larger lies past the peak
+  //   of the loss-limited conversion ratio); written in the cancellation-free form 2c / (q + √(q² − 4Bc)).
+  const A = vin + iout * r1;
+  const B = iout * (r1 + rq);
+  const C = vout + vf + iout * r2;
+  const E = rr * iout;
+  const q = A + B - E;
+  const disc = q * q - 4 * B * (A + C);
+  const converged = q > 0 && disc >= 0;
+  const u = converged ? (2 * (A + C)) / (q + Math.sqrt(disc)) : 1 / (1 - 0.999);
+  let D = 1 - 1 / u;
   const Dp = 1 - D;
   const il2 = iout;
   const il1 = (iout * D) / Dp;
