@@ -5,15 +5,18 @@
 import type { Writable } from 'node:stream';
 import { UsageError } from './args.ts';
 import { evaluateCommand } from './evaluate-command.ts';
+import { studyCommand } from './study-command.ts';
 
 const USAGE = `usage:
   straddle evaluate SPEC --topology ID --fsw FREQ [--ripple RATIO] [--rect diode|sync] [--tech NAME] [--set NAME=VALUE]... [--json]
+  straddle study SPEC [--objectives parts,lossW,stress] [--frequencies 32] [--ripple 0.2,0.3,0.4,0.6] [--weights 1,1,1] [--band MIN,MAX] [--epsilon E] [--max-candidates N] [--tech NAME] [--format json|csv|md]
 `;
 
 type Command = (argv: string[], err: Writable) => string | Promise<string>;
 
 const COMMANDS: Record<string, Command> = {
   evaluate: (argv) => evaluateCommand(argv),
+  study: (argv, err) => studyCommand(argv, err),
 };
 
 export async function main(argv: string[], out: Writable, err: Writable): Promise<number> {

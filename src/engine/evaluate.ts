@@ -68,6 +68,7 @@ export function evaluateCandidate(spec: RailSpec, params: CandidateParams, tech:
     });
   }
   reasons.push(...sizeDesign(topology, d, spec, tech, corners));
+  reasons.push(...(topology.reasons?.(d, spec) ?? []));
   const results = corners.map((c) => evaluateCorner(topology, d, tech, c));
   reasons.push(...cornerReasons(topology, d, spec, corners, results));
   if (d.coupling > 0) {

@@ -123,7 +123,8 @@ export type CautionCode =
   | 'transition-region'
   | 'coupled-equal-windings'
   | 'switching-loop'
-  | 'high-voltage-stress';
+  | 'high-voltage-stress'
+  | 'bus-voltage';
 
 export interface Caution {
   code: CautionCode;

@@ -25,7 +25,7 @@ export function sepicCautions(d: Design, spec: RailSpec, nominal: OperatingScala
     const stepV = spec.step ? Math.abs(spec.step.toV - spec.step.fromV) : 0.5 * spec.input.nomV;
     out.push({
       code: 'resonant-overshoot',
-      value: q,
+      ...(Number.isFinite(q) ? { value: q } : {}),
       message:
         `Coupling network L1+L2 = ${formatSi(loopL, 'H')} with Cs = ${formatSi(cs, 'F')} resonates at ` +
         `${formatSi(leg.f0Hz, 'Hz')} (R0 = ${formatSi(leg.r0Ohm, 'Ω')}, Q ≈ ${Number.isFinite(q) ? q.toFixed(0) : '∞'} from ` +

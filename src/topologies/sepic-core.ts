@@ -88,6 +88,7 @@ export function windingRipples(d: Design, v1: number, v2: number, t: number, out
 }
 
 const rip = { r1: 0, r2: 0 };
+const dcmFractions = { d0: 0, d1: 0, d2: 0 };
 
 export function operateSepic(
   d: Design,
@@ -176,7 +177,10 @@ export function operateSepic(
   } else {
     // three intervals: D (switch), d2 (rectifier), d3 (idle, iL1 = −iL2 = i0)
     const d3 = Math.max(0, 1 - D - d2);
-    const f = { d0: D, d1: d2, d2: d3 };
+    const f = dcmFractions;
+    f.d0 = D;
+    f.d1 = d2;
+    f.d2 = d3;
     // offsets from the known averages: avg(iL2) = Iout, iL1 + iL2 = 0 while idle
     const shapeAvg2 = dI2 * 0.5 * (D + d2);
     const i0 = shapeAvg2 - iout; // iL1 during idle; iL2 = −i0

@@ -6,7 +6,7 @@
 import type { Design } from '../engine/design.ts';
 import type { WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
-import type { Caution, ComponentInfo, Mode, RectifierKind, TopologyId } from '../engine/types.ts';
+import type { Caution, ComponentInfo, Mode, Reason, RectifierKind, TopologyId } from '../engine/types.ts';
 
 /** How the generic sizer chooses a component's value. */
 export type SizingRule =
@@ -65,4 +65,9 @@ export interface Topology {
   operate(design: Design, vinV: number, ioutA: number, waves: WaveSet, out: OperatingScalars): void;
   /** Topology-specific cautions (resonant overshoot, RHP zero ...) for a sized design. */
   cautions?(design: Design, spec: RailSpec, nominal: OperatingScalars): Caution[];
+  /**
+   * Candidate-level infeasibility the corner checks cannot name (e.g. no cascade bus satisfies both
+   * stages' duty limits); collected by evaluate beside the sizing and corner reasons.
+   */
+  reasons?(design: Design, spec: RailSpec): Reason[];
 }

@@ -1,0 +1,125 @@
+/**
+ * Duty solutions shared by the buck-boost family (inverting buck-boost, Ćuk, Zeta): one switch and one
+ * rectifier that conduct in turn, |M| = D/(1−D) in CCM, and the same DCM law with the effective
+ * inductance Le = L1‖L2 (single inductor: L).
+ *
+ * CCM with drops (averaged model, derived here; ideal form in Erickson & Maksimović, Fundamentals of
+ * Power Electronics, 2nd ed., Springer 2001, ch. 2 and 6). Let the switch carry Isw during D and the
+ * rectifier carry Isw during D′ = 1−D, with Isw = Iout/(1−D) from charge balance at the output.
+ * Volt-second balance on the inductors gives, for every member,
+ *   D/(1−D) = (Vout + Vf + rr·Isw + R2·IL2 + Rb·Isw) / (Vin − R1·IL1 − Rq·Isw − Rb·Isw)
+ * where Rq = switch Ron + sense resistor (V/A), rr = rectifier slope or sync Ron (V/A), Vf = diode knee (V),
+ * R1 = winding resistance of the input-side inductor carrying IL1 = Iout·D/(1−D) (Ćuk, Zeta: L1),
+ * R2 = winding resistance of the output-side inductor carrying IL2 = Iout (Ćuk, Zeta: L2), and Rb = a
+ * winding that carries Isw in both intervals (inverting buck-boost: its single inductor; 0 otherwise).
+ * Multiplying out, D·Vin·Iin = Pout + Σ I²R + Vf·Iout with Iin = D·Isw: the averaged model conserves energy
+ * exactly, which the shared contract test checks. Solved by fixed-point iteration (the currents depend on D).
+ *
+ * DCM with a diode rectifier (Erickson & Maksimović ch. 5: buck-boost M = D/√K, K = 2L/(R·Tsw); the Ćuk and
+ * SEPIC DCM analysis replaces L by Le = L1‖L2, since both inductors carry the same voltage in each interval):
+ *   on (D):    the summed current rises from 0 to Ipk at vOn/Le
+ *   off (D2):  it falls back to 0 at vOff/Le through the rectifier
+ *   idle (D3): rectifier and switch both off
+ *   rectifier average Ipk·D2/2 = Iout ⇒ Ipk = √(2·Iout·vOff·Tsw/Le),  D = Ipk·Le/(vOn·Tsw),  D2 = 2·Iout/Ipk
+ * With no drops this is D = M·√K with M = |Vout|/Vin and K = 2·Le·fsw/R. Drops enter as
+ * vOn = Vin − ⅔·Ipk·rOn and vOff = |Vout| + Vf + ⅔·Ipk·rOff: for a triangle from 0 to Ipk the current-weighted
+ * mean ∫i²/∫i is ⅔·Ipk, so these constant voltages carry the interval's I²R energy exactly (derived here).
+ */
+
+/** Result of a CCM duty solution. */
+export interface CcmDuty {
+  duty: number;
+  converged: boolean;
+}
+
+/** Result of a DCM solution: switch duty, rectifier interval, peak of the summed current (A). */
+export interface DcmDuty {
+  duty: number;
+  duty2: number;
+  peakA: number;
+  vOnV: number;
+  vOffV: number;
+  converged: boolean;
+}
+
+/** Iteration cap and tolerance of the fixed points (a handful of steps suffice at realistic drops). */
+const MAX_ITERATIONS = 60;
+const DUTY_TOLERANCE = 1e-13;
+
+/**
+ * CCM duty of the family with drops (see the header): voV = |Vout| (V), vfV = diode knee (V, 0 for sync),
+ * rrOhm, rqOhm, r1Ohm, r2Ohm, rBothOhm as described there, ioutA the load current (A).
+ */
+export function solveCcmDuty(
+  vinV: number,
+  voV: number,
+  vfV: number,
+  rrOhm: number,
+  rqOhm: number,
+  r1Ohm: number,
+  r2Ohm: number,
+  rBothOhm: number,
+  ioutA: number,
+  out: CcmDuty,
+): void {
+  let d = voV / (vinV + voV);
+  out.converged = false;
+  for (let it = 0; it < MAX_ITERATIONS; it++) {
+    const isw = ioutA / (1 - d);
+    const il1 = isw - ioutA;
+    const den = vinV - il1 * r1Ohm - isw * (rqOhm + rBothOhm);
+    if (den <= 0) break;
+    const x = (voV + vfV + isw * (rrOhm + rBothOhm) + ioutA * r2Ohm) / den;
+    const next = x / (1 + x);
+    if (Math.abs(next - d) < DUTY_TOLERANCE) {
+      d = next;
+      out.converged = true;
+      break;
+    }
+    d = next;
+    if (d >= 0.999) break;
+  }
+  out.duty = d;
+}
+
+/**
+ * DCM solution with a diode rectifier (see the header): leH = effective inductance Le (H), rOnOhm and
+ * rOffOhm the resistances the summed current sees in the on and off intervals (Ω).
+ */
+export function solveDcmDuty(
+  vinV: number,
+  voV: number,
+  vfV: number,
+  ioutA: number,
+  leH: number,
+  fswHz: number,
+  rOnOhm: number,
+  rOffOhm: number,
+  out: DcmDuty,
+): void {
+  const t = 1 / fswHz;
+  let pk = Math.sqrt((2 * ioutA * (voV + vfV) * t) / leH);
+  out.converged = false;
+  for (let it = 0; it < MAX_ITERATIONS; it++) {
+    const vOff = voV + vfV + (2 / 3) * pk * rOffOhm;
+    const next = Math.sqrt((2 * ioutA * vOff * t) / leH);
+    const done = Math.abs(next - pk) <= DUTY_TOLERANCE * next;
+    pk = next;
+    if (done) {
+      out.converged = true;
+      break;
+    }
+  }
+  out.peakA = pk;
+  out.vOffV = voV + vfV + (2 / 3) * pk * rOffOhm;
+  out.vOnV = vinV - (2 / 3) * pk * rOnOhm;
+  out.duty = out.vOnV > 0 ? (pk * leH) / (out.vOnV * t) : 1;
+  // the rectifier interval from charge balance at the output, so the output capacitor balances exactly
+  out.duty2 = pk > 0 ? (2 * ioutA) / pk : 0;
+  if (out.vOnV <= 0) out.converged = false;
+}
+
+/** Two inductors in parallel as the switching network sees them (H); one of them 0 or ∞ is handled. */
+export function parallelInductance(l1H: number, l2H: number): number {
+  return l1H > 0 && l2H > 0 ? (l1H * l2H) / (l1H + l2H) : Math.max(l1H, l2H);
+}

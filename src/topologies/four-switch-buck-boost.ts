@@ -1,0 +1,316 @@
+/**
+ * Four-switch (non-inverting) buck-boost with one inductor: a buck leg (Q1 + Q2/D1) feeding a boost leg
+ * (Q3 + Q4/D2) through L1. Regions, duties and the loss-inclusive averaged model: four-switch-solve.ts.
+ *
+ * Waveforms: the period is a list of up to three intervals, each named by the switches that conduct
+ * (A: Q1+Q3, B: Q1+Q4/D2, C: Q2/D1+Q4/D2, idle: nothing). Every branch current is the inductor current
+ * in the intervals where the branch conducts and zero elsewhere:
+ *   Q1: A, B    Q2/D1: C    Q3: A    Q4/D2: B, C    L1, Rsense: always
+ *   Cin: Iin − iQ1 (the source delivers its average)    Cout: iQ4 − Iout
+ * A switch that is on (or off) for the whole period in a region carries conduction loss only: it gets
+ * no switching edges, so the generic loss model gives it no switching or gate loss.
+ *
+ * DCM (diode rectifiers only; with synchronous rectifiers the stage stays in forced CCM): when the CCM
+ * valley current is negative the stage runs three intervals with an idle one (Erickson & Maksimović,
+ * Fundamentals of Power Electronics, 2nd ed., 2001, ch. 5, K = 2L/(R·T), drops: diode knees only):
+ *   buck region   (B, C, idle)  D = √(2·Iout·T⁻¹·L / (vB·(1 + vB/|vC|)))  [M = 2/(1 + √(1 + 4K/D²))]
+ *   boost region  (A, B, idle)  D = √(2·Iout·|vB|·L/T) / Vin              [M = (1 + √(1 + 4D²/K))/2]
+ *   transition    (A, C, idle)  both legs switch together (two-switch buck-boost: D = √K·M), because a
+ *                               light-load controller near Vin ≈ Vout cannot hold the three-interval scheme
+ * with vB = Vin − Vout − Vf2, |vC| = Vout + Vf1 + Vf2. The mode is then reported as 'dcm'.
+ */
+import type { Design } from '../engine/design.ts';
+import type { Caution, RectifierKind } from '../engine/types.ts';
+import type { WaveSet } from '../engine/wave.ts';
+import type { RailSpec } from '../spec/rail-spec.ts';
+import { formatSi } from '../units/format.ts';
+import {
+  CIN,
+  COUT,
+  fourSwitchComponents,
+  L1,
+  newDrops,
+  newPoint,
+  Q1,
+  Q3,
+  R2,
+  R4,
+  RS,
+  readDrops,
+  solveFourSwitch,
+  transitionBandV,
+  U1,
+} from './four-switch-solve.ts';
+import { rhpZeroHz } from './rhp-zero.ts';
+import type { OperatingScalars, Topology } from './topology.ts';
+
+/** Interval kinds, as bit positions of the conduction masks below. */
+const A = 0;
+const B = 1;
+const C = 2;
+const IDLE = 3;
+/** Which intervals each branch conducts in (bit t set = conducts in interval kind t). */
+const ON_Q1 = (1 << A) | (1 << B);
+const ON_R2 = 1 << C;
+const ON_Q3 = 1 << A;
+const ON_R4 = (1 << B) | (1 << C);
+const ON_ALL = 0b1111;
+
+// module-level scratch: operate() must not allocate
+const drops = newDrops();
+const pt = newPoint();
+const segKind = new Int8Array(3);
+const segF = new Float64Array(3);
+const segA = new Float64Array(3);
+const segB = new Float64Array(3);
+const f3 = { d0: 0, d1: 0, d2: 0 };
+const scratchF = new Float64Array(3);
+const scratchA = new Float64Array(3);
+const scratchB = new Float64Array(3);
+
+function setSegments(
+  k0: number,
+  f0: number,
+  a0: number,
+  b0: number,
+  k1: number,
+  f1: number,
+  a1: number,
+  b1: number,
+  k2: number,
+  f2: number,
+  a2: number,
+  b2: number,
+): void {
+  segKind[0] = k0;
+  segKind[1] = k1;
+  segKind[2] = k2;
+  segF[0] = Math.max(0, f0);
+  segF[1] = Math.max(0, f1);
+  segF[2] = Math.max(0, f2);
+  segA[0] = a0;
+  segA[1] = a1;
+  segA[2] = a2;
+  segB[0] = b0;
+  segB[1] = b1;
+  segB[2] = b2;
+}
+
+/** Branch current over the intervals: sign·iL where the mask conducts, plus a constant offset (A). */
+function writeBranch(w: WaveSet, k: number, mask: number, sign: number, offset: number): void {
+  // compact away zero-length intervals (buck and boost regions use two of the three)
+  let n = 0;
+  for (let j = 0; j < 3; j++) {
+    if (!(segF[j] > 0)) continue;
+    const s = (mask >> segKind[j]) & 1 ? sign : 0;
+    scratchF[n] = segF[j];
+    scratchA[n] = offset + s * segA[j];
+    scratchB[n] = offset + s * segB[j];
+    n++;
+  }
+  if (n === 1) w.set2(k, 1, scratchA[0], scratchB[0], scratchB[0], scratchB[0]);
+  else if (n === 2) w.set2(k, scratchF[0], scratchA[0], scratchB[0], scratchA[1], scratchB[1]);
+  else {
+    f3.d0 = scratchF[0];
+    f3.d1 = scratchF[1];
+    f3.d2 = scratchF[2];
+    w.set3(k, f3, scratchA[0], scratchB[0], scratchA[1], scratchB[1], scratchA[2], scratchB[2]);
+  }
+}
+/** Average of iL over the intervals where the mask conducts (A). */
+function branchAverage(mask: number): number {
+  let s = 0;
+  for (let j = 0; j < 3; j++) if ((mask >> segKind[j]) & 1) s += segF[j] * 0.5 * (segA[j] + segB[j]);
+  return s;
+}
+
+/**
+ * Switching edges of a branch: it switches when it conducts for part of the period only; it turns on at
+ * the start of its first conducting interval and off at the end of its last (the masks are contiguous).
+ */
+function writeEdges(w: WaveSet, k: number, mask: number, vSwV: number): void {
+  let frac = 0;
+  let first = -1;
+  let last = -1;
+  for (let j = 0; j < 3; j++) {
+    if (!(segF[j] > 0) || !((mask >> segKind[j]) & 1)) continue;
+    frac += segF[j];
+    if (first < 0) first = j;
+    last = j;
+  }
+  if (first < 0 || frac >= 1 - 1e-12) w.setEdges(k, 0, 0, 0);
+  else w.setEdges(k, segA[first], segB[last], vSwV);
+}
+
+export function operateFourSwitch(
+  d: Design,
+  vin: number,
+  iout: number,
+  w: WaveSet,
+  s: OperatingScalars,
+): void {
+  const vout = Math.abs(d.voutV);
+  const tOverL = 1 / (d.params.fswHz * d.parts[L1].value);
+  readDrops(d, drops);
+  solveFourSwitch(d, drops, vin, iout, tOverL, pt);
+  const { d1, d3, i0A, i1A, i2A } = pt;
+  setSegments(A, d3, i0A, i1A, B, d1 - d3, i1A, i2A, C, 1 - d1, i2A, i0A);
+  let mode: OperatingScalars['mode'] = pt.region;
+  let duty = pt.region === 'buck' ? d1 : d3;
+  let duty2 = pt.region === 'buck-boost' ? d1 : 0;
+  let vL = Math.max(
+    d3 > 0 ? Math.abs(pt.vAV) : 0,
+    d1 > d3 ? Math.abs(pt.vBV) : 0,
+    d1 < 1 ? Math.abs(pt.vCV) : 0,
+  );
+
+  const valley = Math.min(
+    d3 > 0 || d1 > d3 ? i0A : Number.POSITIVE_INFINITY,
+    d1 > d3 ? i1A : Number.POSITIVE_INFINITY,
+    d1 < 1 ? i2A : Number.POSITIVE_INFINITY,
+  );
+  if (d.params.rect === 'diode' && pt.converged && valley < 0) {
+    const vo = vout + drops.vf2V;
+    const vFall = vo + drops.vf1V; // |vC|
+    let dOn: number;
+    let dOff: number;
+    let ip: number;
+    if (pt.region === 'buck') {
+      const vRise = vin - vo;
+      dOn = Math.sqrt((2 * iout) / (vRise * tOverL * (1 + vRise / vFall)));
+      ip = vRise * dOn * tOverL;
+      dOff = ip / (vFall * tOverL);
+      setSegments(B, dOn, 0, ip, C, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      duty = dOn;
+      duty2 = 0;
+    } else if (pt.region === 'boost' && vo > vin) {
+      dOn = Math.sqrt((2 * iout * (vo - vin)) / tOverL) / vin;
+      ip = vin * dOn * tOverL;
+      dOff = ip / ((vo - vin) * tOverL);
+      setSegments(A, dOn, 0, ip, B, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      duty = dOn;
+      duty2 = 0;
+    } else {
+      dOn = Math.sqrt((2 * iout * vFall) / tOverL) / vin;
+      ip = vin * dOn * tOverL;
+      dOff = ip / (vFall * tOverL);
+      setSegments(A, dOn, 0, ip, C, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      duty = dOn;
+      duty2 = dOn;
+    }
+    if (dOn + dOff < 1) {
+      mode = 'dcm';
+      vL = Math.max(vin, vFall);
+    } else {
+      // the light-load solution would not leave an idle interval: keep the CCM one
+      setSegments(A, d3, i0A, i1A, B, d1 - d3, i1A, i2A, C, 1 - d1, i2A, i0A);
+      duty = pt.region === 'buck' ? d1 : d3;
+      duty2 = pt.region === 'buck-boost' ? d1 : 0;
+    }
+  }
+  s.duty = duty;
+  s.duty2 = duty2;
+  s.mode = mode;
+  s.converged = pt.converged;
+
+  const iin = branchAverage(ON_Q1);
+  s.iinA = iin;
+  writeBranch(w, Q1, ON_Q1, 1, 0);
+  writeBranch(w, R2, ON_R2, 1, 0);
+  writeBranch(w, Q3, ON_Q3, 1, 0);
+  writeBranch(w, R4, ON_R4, 1, 0);
+  writeBranch(w, L1, ON_ALL, 1, 0);
+  writeBranch(w, RS, ON_ALL, 1, 0);
+  writeBranch(w, CIN, ON_Q1, -1, iin);
+  writeBranch(w, COUT, ON_R4, 1, -iout);
+  w.setDc(U1, 0);
+
+  // Blocking voltages hold in every region (an idle switch still blocks its leg's voltage):
+  // Q1 sees Vin plus the low-side drop, Q2/D1 sees Vin, Q3 sees Vout plus the high-side drop, Q4/D2 Vout.
+  const il = Math.abs(pt.ilA);
+  const vQ1 = vin + drops.vf1V + drops.r2Ohm * il;
+  const vQ3 = vout + drops.vf2V + drops.r4Ohm * il;
+  writeEdges(w, Q1, ON_Q1, vQ1);
+  writeEdges(w, R2, ON_R2, vin);
+  writeEdges(w, Q3, ON_Q3, vQ3);
+  writeEdges(w, R4, ON_R4, vout);
+  w.setEdges(L1, 0, 0, 0);
+  w.setEdges(RS, 0, 0, 0);
+  w.setEdges(CIN, 0, 0, 0);
+  w.setEdges(COUT, 0, 0, 0);
+  w.setEdges(U1, 0, 0, 0);
+  w.setVoltage(Q1, vQ1, 0);
+  w.setVoltage(R2, vin, 0);
+  w.setVoltage(Q3, vQ3, 0);
+  w.setVoltage(R4, vout, 0);
+  w.setVoltage(L1, vL, 0);
+  w.setVoltage(RS, 0, 0);
+  w.setVoltage(CIN, vin, vin);
+  w.setVoltage(COUT, vout, vout);
+  w.setVoltage(U1, vin, vin);
+}
+
+/** The design's own risks: the transition band and the boost region's RHP zero. */
+export function fourSwitchCautions(d: Design, spec: RailSpec): Caution[] {
+  const out: Caution[] = [];
+  const vout = Math.abs(d.voutV);
+  const iout = spec.load.maxA;
+  const { minV, maxV } = spec.input;
+  const band = { loV: 0, hiV: 0 };
+  transitionBandV(d, iout, band);
+  if (band.hiV >= minV && band.loV <= maxV) {
+    const collapsed = band.hiV - band.loV < 1e-6 * vout;
+    out.push({
+      code: 'transition-region',
+      value: band.hiV - band.loV,
+      message: collapsed
+        ? `Transition region collapses to Vin ≈ ${formatSi(band.loV, 'V')}: with no duty limits Q1 and Q4 simply stay on there. ` +
+          'Real controllers have minimum on- and off-times, so in practice a band exists where both legs switch every period ' +
+          '(more switching loss and ripple) and the mode hand-over needs care.'
+        : `Transition region from Vin ≈ ${formatSi(band.loV, 'V')} to ${formatSi(band.hiV, 'V')} at full load: there both legs ` +
+          `switch every period (buck leg ≤ ${(d.dutyMax * 100).toFixed(0)} %, boost leg ≥ ${(d.dutyMin * 100).toFixed(1)} %), ` +
+          'so switching loss and inductor ripple are higher than in pure buck or boost, and the duties jump at the band edges: ' +
+          'the mode hand-over needs hysteresis and a loop that is stable in all three regions.',
+    });
+  }
+  // RHP zero of the boost leg at the lowest input (largest boost duty): ωz = D′²·R/L (E&M Table 8.2)
+  const rLoad = vout / iout;
+  const l = d.parts[L1].value;
+  const r = newDrops();
+  readDrops(d, r);
+  const p = newPoint();
+  solveFourSwitch(d, r, minV, iout, 1 / (d.params.fswHz * l), p);
+  if (p.region !== 'buck' && p.d3 > 0 && l > 0) {
+    const fz = rhpZeroHz(rLoad, p.d3, l, 'boost');
+    out.push({
+      code: 'rhp-zero',
+      value: fz,
+      message:
+        `Right-half-plane zero near ${formatSi(fz, 'Hz')} at full load and minimum input (${formatSi(minV, 'V')}, boost duty ` +
+        `${(p.d3 * 100).toFixed(0)} %): hold the loop crossover below about ${formatSi(fz / 5, 'Hz')}–${formatSi(fz / 3, 'Hz')}; ` +
+        'the buck region has no RHP zero, so the compensation is set by the boost corner.',
+    });
+  }
+  out.push({
+    code: 'switching-loop',
+    message:
+      'Two hot loops: Q1–Q2–Cin (buck leg) and Q3–Q4–Cout (boost leg); keep each tight, the boost loop matters most since Cout sees pulsed current in the boost region (common practice).',
+  });
+  return out;
+}
+
+export const fourSwitchBuckBoost: Topology = {
+  id: 'four-switch-buck-boost',
+  title: 'Four-switch buck-boost',
+  summary:
+    'Buck leg and boost leg sharing one inductor: above the output it runs as a buck (boost leg parked), below as a boost ' +
+    '(buck leg parked), and near Vin ≈ Vout both legs switch. Non-inverting, one inductor, switches block only Vin or Vout; ' +
+    'pulsating input current in buck mode and an RHP zero in boost mode.',
+  outputSign: 1,
+  rectifiers: ['diode', 'sync'] satisfies RectifierKind[],
+  modeChanging: true,
+  loops: 1,
+  components: fourSwitchComponents,
+  operate: operateFourSwitch,
+  cautions: (d, spec) => fourSwitchCautions(d, spec),
+};

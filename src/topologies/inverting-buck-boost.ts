@@ -1,0 +1,205 @@
+/**
+ * Inverting buck-boost: one inductor, output below ground.
+ *
+ * Form chosen: the common one built from a buck-type controller whose reference is the negative output.
+ * Q1 (bootstrapped N-channel, its gate drive floats on the switch node) connects the input to the switch
+ * node SW; L1 runs from SW to ground; the rectifier (D1 anode, or Q2 source, at the negative output)
+ * returns the inductor current from the output to SW during the off-time. Rsense is in series with Q1.
+ * The controller U1, Q1 and the rectifier all see Vin + |Vout|.
+ *
+ * Currents (iL flows from SW through L1 to ground): the switch carries iL during D, the rectifier during
+ * D′ = 1−D, so both input and output currents pulsate. Ideal CCM (Erickson & Maksimović, Fundamentals of
+ * Power Electronics, 2nd ed., Springer 2001, ch. 2; Rashid, Power Electronics, 4th ed., Pearson 2014,
+ * Ex. 5.7, buck-boost regulator): Vout = −Vin·D/(1−D), IL = Iout/(1−D), Iin = D·IL, ΔIL = Vin·D/(L·fsw),
+ * switch and rectifier block Vin + |Vout|.
+ * With drops (Rq = Q1 Ron + Rsense, rectifier Vf + rr·i or sync Ron, winding RL), volt-second balance:
+ *   D·(Vin − IL·Rq − IL·RL) = (1−D)·(|Vout| + Vf + rr·IL + IL·RL)
+ * which is the family equation of buck-boost-family.ts with Rb = RL (the winding carries IL in both
+ * intervals). DCM with the diode: D = M·√K, K = 2·L·fsw/R (Erickson & Maksimović ch. 5).
+ */
+import type { Design } from '../engine/design.ts';
+import type { Caution, RectifierKind } from '../engine/types.ts';
+import type { Fractions3, WaveSet } from '../engine/wave.ts';
+import type { RailSpec } from '../spec/rail-spec.ts';
+import { formatSi } from '../units/format.ts';
+import { type CcmDuty, type DcmDuty, solveCcmDuty, solveDcmDuty } from './buck-boost-family.ts';
+import { rhpZeroCaution } from './rhp-zero.ts';
+import type { ComponentSpec, OperatingScalars, Topology } from './topology.ts';
+
+function components(rect: RectifierKind): ComponentSpec[] {
+  return [
+    {
+      name: 'Q1',
+      role: 'switch',
+      duty: 'main switch, input to switch node (N-channel, bootstrapped floating gate drive)',
+      sizing: { kind: 'switch' },
+    },
+    {
+      name: 'Rsense',
+      role: 'sense',
+      duty: 'current-sense resistor in series with Q1',
+      sizing: { kind: 'sense', of: 'Q1' },
+    },
+    rect === 'diode'
+      ? {
+          name: 'D1',
+          role: 'diode',
+          duty: 'rectifier from the negative output to the switch node',
+          sizing: { kind: 'diode' },
+        }
+      : {
+          name: 'Q2',
+          role: 'sync',
+          duty: 'synchronous rectifier, source at the negative output',
+          sizing: { kind: 'sync' },
+        },
+    {
+      name: 'L1',
+      role: 'inductor',
+      duty: 'inductor from the switch node to ground',
+      sizing: { kind: 'inductor' },
+    },
+    {
+      name: 'Cin',
+      role: 'capacitor',
+      duty: 'input capacitor (pulsating input current)',
+      sizing: { kind: 'capacitor', ripple: 'input' },
+    },
+    {
+      name: 'Cout',
+      role: 'capacitor',
+      duty: 'output capacitor (pulsating output current)',
+      sizing: { kind: 'capacitor', ripple: 'output' },
+    },
+    {
+      name: 'U1',
+      role: 'controller',
+      duty: 'current-mode controller referenced to the negative output',
+      sizing: { kind: 'controller' },
+    },
+  ];
+}
+
+/** Fixed component slots (same order as components()). */
+const Q1 = 0;
+const RS = 1;
+const RECT = 2;
+const L1 = 3;
+const CIN = 4;
+const COUT = 5;
+const U1 = 6;
+
+const ccm: CcmDuty = { duty: 0, converged: false };
+const dcm: DcmDuty = { duty: 0, duty2: 0, peakA: 0, vOnV: 0, vOffV: 0, converged: false };
+const frac: Fractions3 = { d0: 0, d1: 0, d2: 0 };
+
+function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingScalars): void {
+  const p = d.parts;
+  const vo = Math.abs(d.voutV);
+  const fsw = d.params.fswHz;
+  const T = 1 / fsw;
+  const l = p[L1].value;
+  const rq = p[Q1].ronOhm + p[RS].value;
+  const sync = d.params.rect === 'sync';
+  const vf = sync ? 0 : p[RECT].vfV;
+  const rr = sync ? p[RECT].ronOhm : p[RECT].rdOhm;
+  const rl = p[L1].dcrOhm;
+
+  solveCcmDuty(vin, vo, vf, rr, rq, 0, 0, rl, iout, ccm);
+  let D = ccm.duty;
+  const il = iout / (1 - D);
+  const vd = vf + rr * il;
+  const vOn = vin - il * (rq + rl); // across L1 during D
+  const vOff = vo + vd + il * rl; // magnitude across L1 during 1−D
+  const dI = (vOn * D * T) / l;
+  const a = il - dI / 2;
+  const b = il + dI / 2;
+
+  // Diode rectifier: a negative valley in the CCM solution means the diode stops: DCM.
+  let mode: 'ccm' | 'dcm' = 'ccm';
+  if (!sync && a < 0) {
+    solveDcmDuty(vin, vo, vf, iout, l, fsw, rq + rl, rr + rl, dcm);
+    if (dcm.duty + dcm.duty2 < 1) mode = 'dcm';
+  }
+  s.duty2 = 0;
+  s.mode = mode;
+
+  if (mode === 'ccm') {
+    s.duty = D;
+    s.converged = ccm.converged;
+    const iin = D * il;
+    s.iinA = iin;
+    w.set2(L1, D, a, b, b, a);
+    w.set2(Q1, D, a, b, 0, 0);
+    w.set2(RS, D, a, b, 0, 0);
+    w.set2(RECT, D, 0, 0, b, a);
+    w.set2(CIN, D, a - iin, b - iin, -iin, -iin);
+    w.set2(COUT, D, -iout, -iout, b - iout, a - iout);
+    w.setEdges(Q1, a, b, vin + vo + vd);
+    w.setEdges(RECT, a, b, vin - il * rq + vo);
+  } else {
+    // three intervals: D (switch), D2 (rectifier), D3 (idle, iL = 0)
+    D = dcm.duty;
+    const pk = dcm.peakA;
+    const f = frac;
+    f.d0 = D;
+    f.d1 = dcm.duty2;
+    f.d2 = 1 - D - dcm.duty2;
+    const iin = 0.5 * pk * D;
+    s.duty = D;
+    s.converged = dcm.converged;
+    s.iinA = iin;
+    w.set3(L1, f, 0, pk, pk, 0, 0, 0);
+    w.set3(Q1, f, 0, pk, 0, 0, 0, 0);
+    w.set3(RS, f, 0, pk, 0, 0, 0, 0);
+    w.set3(RECT, f, 0, 0, pk, 0, 0, 0);
+    w.set3(CIN, f, -iin, pk - iin, -iin, -iin, -iin, -iin);
+    w.set3(COUT, f, -iout, -iout, pk - iout, -iout, -iout, -iout);
+    w.setEdges(Q1, 0, pk, vin + vo + vf);
+    w.setEdges(RECT, 0, 0, vin + vo);
+  }
+  w.setDc(U1, 0);
+  w.setVoltage(Q1, vin + vo + vd, 0);
+  w.setVoltage(RS, 0, 0);
+  w.setVoltage(RECT, vin - il * rq + vo, 0);
+  w.setVoltage(L1, Math.max(Math.abs(vOn), vOff), 0);
+  w.setVoltage(CIN, vin, vin);
+  w.setVoltage(COUT, vo, vo);
+  w.setVoltage(U1, vin + vo, vin + vo);
+}
+
+function cautions(d: Design, spec: RailSpec, nominal: OperatingScalars): Caution[] {
+  const l = d.parts[L1].value;
+  const vo = spec.output.voltageV;
+  const rLoad = vo / spec.load.maxA;
+  const vStress = spec.input.maxV + vo;
+  return [
+    rhpZeroCaution(rLoad, nominal.duty, l, 'buck-boost'),
+    {
+      code: 'high-voltage-stress',
+      value: vStress,
+      message:
+        `Q1, the rectifier and the controller (referenced to the negative output) see Vin + |Vout| = ` +
+        `${formatSi(vStress, 'V')} at maximum input: rate all three for it, with the switch-node ringing on top.`,
+    },
+    {
+      code: 'switching-loop',
+      message:
+        'Input and output currents both pulsate: the hot loop Cin → Q1 → rectifier → Cout → ground holds both capacitors, so place them side by side at the switch (common practice).',
+    },
+  ];
+}
+
+export const invertingBuckBoost: Topology = {
+  id: 'inverting-buck-boost',
+  title: 'Inverting buck-boost',
+  summary:
+    'One switch, one inductor, one rectifier: the inductor charges from the input and discharges into an output below ground, |Vout| = Vin·D/(1−D), above or below the input. Fewest parts; input and output currents both pulsate; the switch, rectifier and controller block Vin + |Vout|.',
+  outputSign: -1,
+  rectifiers: ['diode', 'sync'],
+  modeChanging: false,
+  loops: 1,
+  components,
+  operate,
+  cautions,
+};

@@ -1,0 +1,118 @@
+/**
+ * A plain boost stage (inductor from the input to the switch node, low-side switch, rectifier to the
+ * output), as one stage of a cascade. Writes the waveforms of its switch, sense resistor, rectifier and
+ * inductor; the capacitors around it are the cascade's.
+ *
+ * CCM, ideal (Erickson & Maksimović, Fundamentals of Power Electronics, 2nd ed., Springer 2001, ch. 2):
+ *   Vo = Vi/(1−D), IL = Io/(1−D), ΔIL = Vi·D/(L·fsw); switch and rectifier block Vo.
+ * With drops — switch path Rq (on-resistance + sense resistor), rectifier Vf + rr·i, winding RL — the
+ * volt-second balance on L in the averaged model (derived here) is
+ *   D·(Vi − IL·RL − IL·Rq) + D′·(Vi − IL·RL − Vo − Vf − rr·IL) = 0,  IL = Io/D′,
+ * and multiplying by D′ gives a quadratic in D′ that is solved in closed form (no iteration needed):
+ *   (Vo + Vf)·D′² − (Vi + Io·Rq − Io·rr)·D′ + Io·(RL + Rq) = 0.
+ * The larger root is the operating point (it tends to Vi/Vo as the drops vanish); a negative
+ * discriminant means the drops eat the whole gain (no steady state). Multiplying the balance by IL shows
+ * Vi·IL = Vo·Io + IL²·RL + D·IL²·Rq + D′·IL·(Vf + rr·IL): the input power carries exactly the drops.
+ *
+ * DCM (diode rectifier, CCM valley below zero): the inductor ramps from zero to Ipk = Vi·D·T/L, falls
+ * to zero during D₂ = D·Vi/(Vo + Vf − Vi), then idles; the rectifier delivers Io = ½·Ipk·D₂, so
+ *   D = √(2·Io·L·(Vo + Vf − Vi) / (Vi²·T)),
+ * which with Vf = 0 is Erickson & Maksimović's M = ½ + √(¼ + D²/K), K = 2L·fsw/R (ch. 5). The
+ * resistive drops are left out of the DCM duty (they are small at the light loads where DCM occurs).
+ */
+import type { Design } from '../engine/design.ts';
+import type { Fractions3, WaveSet } from '../engine/wave.ts';
+import { newDrops, readDrops, type StageSlots, type StageState } from './stage.ts';
+
+const drops = newDrops();
+const f3: Fractions3 = { d0: 0, d1: 0, d2: 0 };
+
+/** Steady state of a boost stage from `viV` up to `voV` delivering `ioA` (all > 0). */
+export function operateBoostStage(
+  d: Design,
+  slots: StageSlots,
+  viV: number,
+  voV: number,
+  ioA: number,
+  w: WaveSet,
+  st: StageState,
+): void {
+  readDrops(d, slots, drops);
+  const { rqOhm: rq, vfV: vf, rrOhm: rr, rlOhm: rl } = drops;
+  const T = 1 / d.params.fswHz;
+  const L = d.parts[slots.inductor].value;
+
+  // CCM duty with drops: the larger root of a·D′² − b·D′ + c = 0
+  const a = voV + vf;
+  const b = viV + ioA * (rq - rr);
+  const c = ioA * (rl + rq);
+  const disc = b * b - 4 * a * c;
+  let converged = disc >= 0;
+  let dp = converged ? (b + Math.sqrt(disc)) / (2 * a) : (0.5 * b) / a;
+  if (dp > 1) {
+    // the input is above the output: a boost cannot step down
+    dp = 1;
+    converged = false;
+  }
+  dp = Math.max(dp, 1e-6);
+  let D = 1 - dp;
+  const il = ioA / dp;
+  const vd = vf + rr * il;
+  const vOn = viV - il * (rl + rq);
+  const ripple = (vOn * D * T) / L;
+
+  st.mode = 'ccm';
+  st.converged = converged;
+  if (drops.diode && il - ripple / 2 < 0 && a > viV) {
+    // discontinuous: see the header for the three-interval solution
+    const dDcm = Math.sqrt((2 * ioA * L * (a - viV)) / (viV * viV * T));
+    const d2 = (dDcm * viV) / (a - viV);
+    if (dDcm + d2 < 1) {
+      D = dDcm;
+      const ipk = (viV * D * T) / L;
+      f3.d0 = D;
+      f3.d1 = d2;
+      f3.d2 = 1 - D - d2;
+      st.mode = 'dcm';
+      st.converged = true;
+      st.duty = D;
+      st.rectDuty = d2;
+      st.iinA = 0.5 * ipk * (D + d2);
+      st.ilA = st.iinA;
+      st.ripplePpA = ipk;
+      w.set3(slots.inductor, f3, 0, ipk, ipk, 0, 0, 0);
+      w.set3(slots.sw, f3, 0, ipk, 0, 0, 0, 0);
+      w.set3(slots.sense, f3, 0, ipk, 0, 0, 0, 0);
+      w.set3(slots.rect, f3, 0, 0, ipk, 0, 0, 0);
+      w.setEdges(slots.sw, 0, ipk, a);
+      w.setEdges(slots.rect, 0, 0, voV);
+      setBoostVoltages(slots, viV, voV, a, w);
+      return;
+    }
+  }
+
+  const lo = il - ripple / 2;
+  const hi = il + ripple / 2;
+  st.duty = D;
+  st.rectDuty = dp;
+  st.iinA = il;
+  st.ilA = il;
+  st.ripplePpA = ripple;
+  w.set2(slots.inductor, D, lo, hi, hi, lo);
+  w.set2(slots.sw, D, lo, hi, 0, 0);
+  w.set2(slots.sense, D, lo, hi, 0, 0);
+  w.set2(slots.rect, D, 0, 0, hi, lo);
+  // the switch turns on at the valley and off at the peak against Vo + Vd; the rectifier commutates
+  // the same two currents (dead times of a synchronous rectifier) and blocks Vo
+  w.setEdges(slots.sw, lo, hi, voV + vd);
+  w.setEdges(slots.rect, lo, hi, voV);
+  setBoostVoltages(slots, vOn, voV, voV + vd, w);
+}
+
+function setBoostVoltages(slots: StageSlots, vOnV: number, voV: number, vSwOffV: number, w: WaveSet): void {
+  w.setVoltage(slots.sw, vSwOffV, 0);
+  w.setVoltage(slots.sense, 0, 0);
+  w.setVoltage(slots.rect, voV, 0);
+  // the inductor sees Vi (on) or Vo + Vd − Vi (off)
+  w.setVoltage(slots.inductor, Math.max(Math.abs(vOnV), vSwOffV - vOnV), 0);
+}
