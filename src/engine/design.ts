@@ -47,6 +47,8 @@ export interface Design {
   coupling: number;
   /** Intermediate bus of a cascade (V); 0 otherwise. */
   busV: number;
+  /** Margin of a cascade's bus beyond the rail it must clear (fraction, from the technology preset). */
+  busMargin: number;
   /** Ideal technology: no drops and no losses beyond pinned parasitics. */
   ideal: boolean;
   /** Topology-specific constants (e.g. duty limits, transition-region settings). */

@@ -43,6 +43,7 @@ export function createDesign(topology: Topology, spec: RailSpec, params: Candida
     parts: comps.map(blankPart),
     coupling: comps.some((c) => c.role === 'coupled-inductor') ? tech.inductor.coupling : 0,
     busV: 0,
+    busMargin: tech.busMargin,
     ideal: tech.ideal,
     dutyMin: tech.controller.minOnS * fsw,
     dutyMax: Math.min(tech.controller.maxDuty, 1 - tech.controller.minOffS * fsw),
@@ -52,7 +53,18 @@ export function createDesign(topology: Topology, spec: RailSpec, params: Candida
   return d;
 }
 
-export function evaluateCandidate(spec: RailSpec, params: CandidateParams, tech: Technology, pins: Pins = {}): Evaluation {
+export interface EvaluateOptions {
+  /** Build the human-readable part list (default true; a sweep that discards it skips the formatting). */
+  partList?: boolean;
+}
+
+export function evaluateCandidate(
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins = {},
+  options: EvaluateOptions = {},
+): Evaluation {
   const topology = getTopology(params.topology);
   if (!topology) throw new EngineError(`unknown topology ${params.topology}`, 'topology');
   if (!topology.rectifiers.includes(params.rect)) {
@@ -115,7 +127,7 @@ export function evaluateCandidate(spec: RailSpec, params: CandidateParams, tech:
     busV: d.busV > 0 ? d.busV : undefined,
     efficiencyNom: nom.efficiency,
     corners: results,
-    parts: summarizeParts(d, tech, results),
+    parts: options.partList === false ? [] : summarizeParts(d, tech, results),
   };
 }
 

@@ -60,6 +60,7 @@ export function chooseBus(
   dutyMin: number,
   dutyMax: number,
   rect: RectifierKind,
+  preferredMargin = BUS_MARGIN,
 ): BusChoice {
   const { minV, maxV } = spec.input;
   const vo = spec.output.voltageV;
@@ -72,7 +73,7 @@ export function chooseBus(
   let highV: number;
   if (order === 'boost-buck') {
     railV = Math.max(maxV, vo);
-    preferredV = railV * (1 + BUS_MARGIN);
+    preferredV = railV * (1 + preferredMargin);
     const boostMin = dutyMin < 1 ? (maxV / (1 - dutyMin)) * e : Infinity;
     const buckMax = dutyMax > 0 ? ((vo + vd) * (1 + r)) / dutyMax - vd : Infinity;
     const boostMax = dutyMax < 1 ? (minV * (1 - r)) / (1 - dutyMax) - vd : Infinity;
@@ -81,7 +82,7 @@ export function chooseBus(
     highV = Math.min(boostMax, buckMin);
   } else {
     railV = Math.min(minV, vo);
-    preferredV = railV * (1 - BUS_MARGIN);
+    preferredV = railV * (1 - preferredMargin);
     const buckMin = dutyMin * maxV * e;
     const boostMax = ((1 - dutyMax) * (vo + vd)) / (1 - r);
     const buckMax = (dutyMax * (minV + vd)) / (1 + r) - vd;
@@ -100,12 +101,12 @@ export function chooseBus(
 
 /** The bus of a design (for `prepare`): the chosen voltage is stored in design.busV. */
 export function prepareBus(order: CascadeOrder, d: Design, spec: RailSpec): void {
-  d.busV = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect).busV;
+  d.busV = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect, d.busMargin).busV;
 }
 
 /** 'bus-voltage-unreachable' when no bus keeps both stages inside the duty limits at this fsw. */
 export function busReasons(order: CascadeOrder, d: Design, spec: RailSpec): Reason[] {
-  const bus = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect);
+  const bus = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect, d.busMargin);
   if (bus.reachable) return [];
   const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
   const kHz = (d.params.fswHz / 1e3).toFixed(0);

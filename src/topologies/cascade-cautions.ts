@@ -12,7 +12,7 @@ import { newStageState } from './stage.ts';
 export function cascadeCautions(d: Design, spec: RailSpec, order: CascadeOrder): Caution[] {
   const out: Caution[] = [];
   const boostFirst = order === 'boost-buck';
-  const bus = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect);
+  const bus = chooseBus(order, spec, d.dutyMin, d.dutyMax, d.params.rect, d.busMargin);
   const where = boostFirst ? 'above the highest' : 'below the lowest';
   const clamp =
     Math.abs(bus.busV - bus.preferredV) > 1e-9 * bus.preferredV

@@ -96,6 +96,11 @@ for (const topology of TOPOLOGIES.values()) {
         fc.property(rails, fc.double({ min: 1.05, max: 4, noNaN: true }), (r, factor) => {
           const low = evaluate(topology.id, topology.rectifiers[0], r);
           const high = evaluate(topology.id, topology.rectifiers[0], { ...r, fsw: Math.min(r.fsw * factor, 2e6) });
+          // A mode-changing stage may move a corner into another operating region when the minimum
+          // on-time grows with frequency (four-switch: boost → transition); its waveform then changes
+          // shape, so the comparison only holds while every full-load corner keeps its mode.
+          const modes = (e: Evaluation) => e.corners.filter((c) => c.label !== 'light-load').map((c) => c.mode).join();
+          fc.pre(modes(low) === modes(high));
           for (const p of low.parts.filter((x) => x.unit === 'H')) {
             const other = high.parts.find((x) => x.name === p.name)!;
             expect(other.value, p.name).toBeLessThanOrEqual(p.value * (1 + 1e-9));
