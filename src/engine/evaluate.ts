@@ -53,6 +53,35 @@ export function createDesign(topology: Topology, spec: RailSpec, params: Candida
   return d;
 }
 
+export interface SizedCandidate {
+  topology: Topology;
+  design: Design;
+  corners: Corner[];
+  /** Reasons found while sizing (polarity, voltage classes, ripple reach, topology-level limits). */
+  reasons: Reason[];
+}
+
+/** Size (or take pinned) every part of a candidate: the design the reports, netlists and simulations use. */
+export function designCandidate(spec: RailSpec, params: CandidateParams, tech: Technology, pins: Pins = {}): SizedCandidate {
+  const topology = getTopology(params.topology);
+  if (!topology) throw new EngineError(`unknown topology ${params.topology}`, 'topology');
+  if (!topology.rectifiers.includes(params.rect)) {
+    throw new EngineError(`${params.topology} has no ${params.rect} rectifier variant`, 'rect');
+  }
+  const corners = cornersFor(spec, topology);
+  const design = createDesign(topology, spec, params, tech, pins);
+  const reasons: Reason[] = [];
+  if (spec.output.polarity !== 'either' && (spec.output.polarity === 'positive') !== (topology.outputSign > 0)) {
+    reasons.push({
+      code: 'polarity-mismatch',
+      message: `${topology.title} gives a ${topology.outputSign > 0 ? 'positive' : 'negative'} output; the spec asks for ${spec.output.polarity}`,
+    });
+  }
+  reasons.push(...sizeDesign(topology, design, spec, tech, corners));
+  reasons.push(...(topology.reasons?.(design, spec) ?? []));
+  return { topology, design, corners, reasons };
+}
+
 export interface EvaluateOptions {
   /** Build the human-readable part list (default true; a sweep that discards it skips the formatting). */
   partList?: boolean;
@@ -65,22 +94,7 @@ export function evaluateCandidate(
   pins: Pins = {},
   options: EvaluateOptions = {},
 ): Evaluation {
-  const topology = getTopology(params.topology);
-  if (!topology) throw new EngineError(`unknown topology ${params.topology}`, 'topology');
-  if (!topology.rectifiers.includes(params.rect)) {
-    throw new EngineError(`${params.topology} has no ${params.rect} rectifier variant`, 'rect');
-  }
-  const corners = cornersFor(spec, topology);
-  const d = createDesign(topology, spec, params, tech, pins);
-  const reasons: Reason[] = [];
-  if (spec.output.polarity !== 'either' && (spec.output.polarity === 'positive') !== (topology.outputSign > 0)) {
-    reasons.push({
-      code: 'polarity-mismatch',
-      message: `${topology.title} gives a ${topology.outputSign > 0 ? 'positive' : 'negative'} output; the spec asks for ${spec.output.polarity}`,
-    });
-  }
-  reasons.push(...sizeDesign(topology, d, spec, tech, corners));
-  reasons.push(...(topology.reasons?.(d, spec) ?? []));
+  const { topology, design: d, corners, reasons } = designCandidate(spec, params, tech, pins);
   const results = corners.map((c) => evaluateCorner(topology, d, tech, c));
   reasons.push(...cornerReasons(topology, d, spec, corners, results));
   if (d.coupling > 0) {
