@@ -19,7 +19,9 @@ export async function run(): Promise<string[]> {
   if (!loaded.ok) throw new Error('demo spec invalid');
   const spec = loaded.spec;
   const tech = loadTechnology('default');
-  const lines: string[] = ['engine: analytic corner evaluations per second (one core, sized design, demo spec)'];
+  const lines: string[] = [
+    'engine: analytic corner evaluations per second (one core, sized design, demo spec)',
+  ];
   let total = 0;
   let count = 0;
   for (const topology of TOPOLOGIES.values()) {
@@ -35,20 +37,25 @@ export async function run(): Promise<string[]> {
     const n = 400_000;
     let sink = 0;
     // warm-up for the JIT
-    for (let i = 0; i < 20_000; i++) sink += operateWithLosses(topology, d, tech, 10 + (i % 5), 2, w, s, per, kinds);
+    for (let i = 0; i < 20_000; i++)
+      sink += operateWithLosses(topology, d, tech, 10 + (i % 5), 2, w, s, per, kinds);
     const t0 = process.hrtime.bigint();
-    for (let i = 0; i < n; i++) sink += operateWithLosses(topology, d, tech, 10 + (i % 5), 2, w, s, per, kinds);
+    for (let i = 0; i < n; i++)
+      sink += operateWithLosses(topology, d, tech, 10 + (i % 5), 2, w, s, per, kinds);
     const dt = Number(process.hrtime.bigint() - t0) / 1e9;
     const rate = n / dt;
     total += rate;
     count++;
-    lines.push(`  ${topology.id.padEnd(24)} ${(rate / 1e6).toFixed(2)} M corners/s (${((dt / n) * 1e9).toFixed(0)} ns each)${sink === 0 ? ' !' : ''}`);
+    lines.push(
+      `  ${topology.id.padEnd(24)} ${(rate / 1e6).toFixed(2)} M corners/s (${((dt / n) * 1e9).toFixed(0)} ns each)${sink === 0 ? ' !' : ''}`,
+    );
   }
   lines.push(`  mean over topologies     ${(total / count / 1e6).toFixed(2)} M corners/s`);
   // whole-candidate evaluation (sizing + all corners + report objects)
   const m = 2000;
   const t0 = process.hrtime.bigint();
-  for (let i = 0; i < m; i++) evaluateCandidate(spec, { topology: 'sepic', fswHz: 200e3 + i, ripple: 0.3, rect: 'diode' }, tech);
+  for (let i = 0; i < m; i++)
+    evaluateCandidate(spec, { topology: 'sepic', fswHz: 200e3 + i, ripple: 0.3, rect: 'diode' }, tech);
   const dt = Number(process.hrtime.bigint() - t0) / 1e9;
   lines.push(`  full candidate (size + report), sepic: ${((dt / m) * 1e6).toFixed(0)} µs each`);
   return lines;

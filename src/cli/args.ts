@@ -9,7 +9,12 @@ export class UsageError extends Error {
   }
 }
 
-export function quantityOption(name: string, raw: string | undefined, unit: string, problems: string[]): number | undefined {
+export function quantityOption(
+  name: string,
+  raw: string | undefined,
+  unit: string,
+  problems: string[],
+): number | undefined {
   if (raw === undefined) return undefined;
   const q = parseQuantity(raw, unit);
   if (!q.ok) {
@@ -19,7 +24,17 @@ export function quantityOption(name: string, raw: string | undefined, unit: stri
   return q.value;
 }
 
-const PIN_UNITS: Record<string, string> = { dcr: 'Ω', esr: 'Ω', ron: 'Ω', rd: 'Ω', vf: 'V', cj: 'F', qg: 'C', qsw: 'C', qoss: 'C' };
+const PIN_UNITS: Record<string, string> = {
+  dcr: 'Ω',
+  esr: 'Ω',
+  ron: 'Ω',
+  rd: 'Ω',
+  vf: 'V',
+  cj: 'F',
+  qg: 'C',
+  qsw: 'C',
+  qoss: 'C',
+};
 
 /** Parse `NAME=VALUE` pins; the unit follows from the name (L… H, C… F, R… Ω) or the suffix. */
 export function parsePins(list: string[] | undefined, problems: string[]): Record<string, number> {
@@ -32,7 +47,15 @@ export function parsePins(list: string[] | undefined, problems: string[]): Recor
     }
     const key = item.slice(0, eq).trim();
     const [name, suffix] = key.split('.', 2);
-    const unit = suffix ? (PIN_UNITS[suffix] ?? '') : name.startsWith('L') ? 'H' : name.startsWith('C') ? 'F' : name.startsWith('R') ? 'Ω' : '';
+    const unit = suffix
+      ? (PIN_UNITS[suffix] ?? '')
+      : name.startsWith('L')
+        ? 'H'
+        : name.startsWith('C')
+          ? 'F'
+          : name.startsWith('R')
+            ? 'Ω'
+            : '';
     const q = parseQuantity(item.slice(eq + 1).trim(), unit);
     if (!q.ok) problems.push(`--set ${item}: ${q.message}`);
     else pins[key] = q.value;

@@ -5,13 +5,21 @@ import { formatPercent, formatSi } from '../units/format.ts';
 
 export function renderEvaluationText(spec: RailSpec, ev: Evaluation): string {
   const lines: string[] = [];
-  lines.push(`${spec.name}: ${ev.topology} at ${formatSi(ev.fswHz, 'Hz')}, ripple ratio ${ev.ripple}, ${ev.rect} rectifier`);
-  lines.push(ev.feasible ? 'feasible' : `INFEASIBLE:\n${ev.reasons.map((r) => `  - ${r.message}`).join('\n')}`);
+  lines.push(
+    `${spec.name}: ${ev.topology} at ${formatSi(ev.fswHz, 'Hz')}, ripple ratio ${ev.ripple}, ${ev.rect} rectifier`,
+  );
+  lines.push(
+    ev.feasible ? 'feasible' : `INFEASIBLE:\n${ev.reasons.map((r) => `  - ${r.message}`).join('\n')}`,
+  );
   const o = ev.objectives;
-  lines.push(`parts ${o.parts}, worst-corner loss ${formatSi(o.lossW, 'W')}, stress ${o.stress.toFixed(2)}, volume ${o.volumeMm3.toFixed(0)} mm³, efficiency at nominal ${formatPercent(ev.efficiencyNom)}`);
+  lines.push(
+    `parts ${o.parts}, worst-corner loss ${formatSi(o.lossW, 'W')}, stress ${o.stress.toFixed(2)}, volume ${o.volumeMm3.toFixed(0)} mm³, efficiency at nominal ${formatPercent(ev.efficiencyNom)}`,
+  );
   lines.push('');
   for (const c of ev.corners) {
-    lines.push(`${c.label}: Vin ${formatSi(c.vinV, 'V')}, Iout ${formatSi(c.ioutA, 'A')}, duty ${formatPercent(c.duty)}, ${c.mode}, loss ${formatSi(c.lossW, 'W')}, efficiency ${formatPercent(c.efficiency)}`);
+    lines.push(
+      `${c.label}: Vin ${formatSi(c.vinV, 'V')}, Iout ${formatSi(c.ioutA, 'A')}, duty ${formatPercent(c.duty)}, ${c.mode}, loss ${formatSi(c.lossW, 'W')}, efficiency ${formatPercent(c.efficiency)}`,
+    );
   }
   lines.push('');
   for (const p of ev.parts) lines.push(`  ${p.name.padEnd(7)} ${p.detail}`);
@@ -19,6 +27,9 @@ export function renderEvaluationText(spec: RailSpec, ev: Evaluation): string {
     lines.push('', 'cautions:');
     for (const c of ev.cautions) lines.push(`  - ${c.message}`);
   }
-  lines.push('', 'Estimates for topology selection only: verify with a simulator and on hardware, check thermal, creepage and clearance, and defer to local codes and licensed practice.');
+  lines.push(
+    '',
+    'Estimates for topology selection only: verify with a simulator and on hardware, check thermal, creepage and clearance, and defer to local codes and licensed practice.',
+  );
   return `${lines.join('\n')}\n`;
 }

@@ -1,5 +1,4 @@
 /** Cautions that follow from any topology's numbers (the topology adds its own). */
-import type { RailSpec } from '../spec/rail-spec.ts';
 import type { Topology } from '../topologies/topology.ts';
 import { formatSi } from '../units/format.ts';
 import type { Design } from './design.ts';
@@ -8,7 +7,12 @@ import type { Caution, Corner, CornerResult } from './types.ts';
 /** Input-capacitor RMS current above this fraction of the input current marks pulsating input (common practice). */
 export const PULSATING_INPUT_RATIO = 0.5;
 
-export function generalCautions(topology: Topology, d: Design, spec: RailSpec, corners: Corner[], results: CornerResult[]): Caution[] {
+export function generalCautions(
+  topology: Topology,
+  d: Design,
+  corners: Corner[],
+  results: CornerResult[],
+): Caution[] {
   const out: Caution[] = [];
   if (topology.outputSign < 0) {
     out.push({
@@ -31,7 +35,7 @@ export function generalCautions(topology: Topology, d: Design, spec: RailSpec, c
       message: `Pulsating input current: the input capacitor carries ${(worst * 100).toFixed(0)} % of the input current as RMS ripple; expect an input filter (and its damping) to meet conducted-emission limits.`,
     });
   }
-  const light = results.find((r, i) => !corners[i].fullLoad);
+  const light = results.find((_r, i) => !corners[i].fullLoad);
   if (light?.mode === 'dcm') {
     out.push({
       code: 'light-load-dcm',
@@ -42,7 +46,8 @@ export function generalCautions(topology: Topology, d: Design, spec: RailSpec, c
   if (topology.loops > 1) {
     out.push({
       code: 'cascade-two-loops',
-      message: 'Two stages in cascade need two control loops (or one controller with two outputs); the second stage is a constant-power load on the bus, a negative incremental resistance the first loop must tolerate.',
+      message:
+        'Two stages in cascade need two control loops (or one controller with two outputs); the second stage is a constant-power load on the bus, a negative incremental resistance the first loop must tolerate.',
     });
   }
   return out;

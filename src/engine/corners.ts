@@ -12,7 +12,8 @@ export function cornersFor(spec: RailSpec, topology: Topology): Corner[] {
   const full = spec.load.maxA;
   const list: Corner[] = [{ label: 'vin-min', vinV: minV, ioutA: full, fullLoad: true }];
   if (nomV !== minV) list.push({ label: 'vin-nom', vinV: nomV, ioutA: full, fullLoad: true });
-  if (maxV !== nomV && maxV !== minV) list.push({ label: 'vin-max', vinV: maxV, ioutA: full, fullLoad: true });
+  if (maxV !== nomV && maxV !== minV)
+    list.push({ label: 'vin-max', vinV: maxV, ioutA: full, fullLoad: true });
   const vo = spec.output.voltageV;
   if (topology.modeChanging && vo > minV && vo < maxV && !list.some((c) => c.vinV === vo)) {
     list.push({ label: 'vin-near-vout', vinV: vo, ioutA: full, fullLoad: true });

@@ -6,14 +6,22 @@ import type { Technology } from '../parts/technology.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { getTopology } from '../topologies/registry.ts';
 import type { OperatingScalars, Topology } from '../topologies/topology.ts';
+import { generalCautions } from './cautions.ts';
 import { cornersFor, nominalCorner } from './corners.ts';
 import { blankPart, type Design } from './design.ts';
 import { computeLosses, LOSS_KINDS } from './losses.ts';
-import { applyPins } from './pins.ts';
 import { summarizeParts } from './part-summary.ts';
-import { generalCautions } from './cautions.ts';
+import { applyPins } from './pins.ts';
 import { newScalars, sizeDesign } from './size.ts';
-import type { CandidateParams, ComponentStress, Corner, CornerResult, Evaluation, Pins, Reason } from './types.ts';
+import type {
+  CandidateParams,
+  ComponentStress,
+  Corner,
+  CornerResult,
+  Evaluation,
+  Pins,
+  Reason,
+} from './types.ts';
 import { WaveSet } from './wave.ts';
 
 export class EngineError extends Error {
@@ -33,7 +41,13 @@ export interface CornerDetail extends CornerResult {
   lossByKind: Record<string, number>;
 }
 
-export function createDesign(topology: Topology, spec: RailSpec, params: CandidateParams, tech: Technology, pins: Pins = {}): Design {
+export function createDesign(
+  topology: Topology,
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins = {},
+): Design {
   const comps = topology.components(params.rect);
   const fsw = params.fswHz;
   const d: Design = {
@@ -62,7 +76,12 @@ export interface SizedCandidate {
 }
 
 /** Size (or take pinned) every part of a candidate: the design the reports, netlists and simulations use. */
-export function designCandidate(spec: RailSpec, params: CandidateParams, tech: Technology, pins: Pins = {}): SizedCandidate {
+export function designCandidate(
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins = {},
+): SizedCandidate {
   const topology = getTopology(params.topology);
   if (!topology) throw new EngineError(`unknown topology ${params.topology}`, 'topology');
   if (!topology.rectifiers.includes(params.rect)) {
@@ -71,7 +90,10 @@ export function designCandidate(spec: RailSpec, params: CandidateParams, tech: T
   const corners = cornersFor(spec, topology);
   const design = createDesign(topology, spec, params, tech, pins);
   const reasons: Reason[] = [];
-  if (spec.output.polarity !== 'either' && (spec.output.polarity === 'positive') !== (topology.outputSign > 0)) {
+  if (
+    spec.output.polarity !== 'either' &&
+    (spec.output.polarity === 'positive') !== topology.outputSign > 0
+  ) {
     reasons.push({
       code: 'polarity-mismatch',
       message: `${topology.title} gives a ${topology.outputSign > 0 ? 'positive' : 'negative'} output; the spec asks for ${spec.output.polarity}`,
@@ -126,7 +148,10 @@ export function evaluateCandidate(
   const volumeMm3 = d.parts.reduce((a, p) => a + p.volumeMm3, 0);
   const scal = newScalars();
   scal.duty = nom.duty;
-  const cautions = [...(topology.cautions?.(d, spec, scal) ?? []), ...generalCautions(topology, d, spec, corners, results)];
+  const cautions = [
+    ...(topology.cautions?.(d, spec, scal) ?? []),
+    ...generalCautions(topology, d, corners, results),
+  ];
 
   return {
     topology: params.topology,
@@ -223,19 +248,34 @@ export function evaluateCorner(topology: Topology, d: Design, tech: Technology, 
   };
 }
 
-function cornerReasons(topology: Topology, d: Design, spec: RailSpec, corners: Corner[], results: CornerDetail[]): Reason[] {
+function cornerReasons(
+  topology: Topology,
+  d: Design,
+  spec: RailSpec,
+  corners: Corner[],
+  results: CornerDetail[],
+): Reason[] {
   const out: Reason[] = [];
   const fsw = d.params.fswHz;
   results.forEach((r, i) => {
     const c = corners[i];
     const s = r as CornerDetail & { notConverged?: boolean };
     if (s.notConverged && c.fullLoad) {
-      out.push({ code: 'not-converged', corner: c.label, message: `${c.label}: no steady state with these drops (the stage cannot reach ${Math.abs(d.voutV)} V from ${c.vinV} V)` });
+      out.push({
+        code: 'not-converged',
+        corner: c.label,
+        message: `${c.label}: no steady state with these drops (the stage cannot reach ${Math.abs(d.voutV)} V from ${c.vinV} V)`,
+      });
       return;
     }
     if (!c.fullLoad) {
       if (r.mode === 'dcm' && spec.load.ccmRequired) {
-        out.push({ code: 'dcm-light-load', corner: c.label, value: c.ioutA, message: `${c.label}: discontinuous conduction at ${c.ioutA} A while the spec requires CCM` });
+        out.push({
+          code: 'dcm-light-load',
+          corner: c.label,
+          value: c.ioutA,
+          message: `${c.label}: discontinuous conduction at ${c.ioutA} A while the spec requires CCM`,
+        });
       }
       return;
     }

@@ -2,9 +2,10 @@
  * Loss of every component at one operating point, from its waveform and its sized parameters.
  * Writes per-component loss and per-kind totals into caller-owned arrays: no allocation.
  */
-import type { Technology } from '../parts/technology.ts';
+
 import { igseLossDensity } from '../parts/inductor.ts';
 import { type MosfetLoss, switchLoss, syncLoss } from '../parts/mosfet.ts';
+import type { Technology } from '../parts/technology.ts';
 import type { Design } from './design.ts';
 import { MAX_SEGMENTS, type WaveSet } from './wave.ts';
 
@@ -47,7 +48,21 @@ export function computeLosses(
     let loss = 0;
     switch (p.role) {
       case 'switch': {
-        switchLoss(p.ronOhm, p.qgC, p.qswC, p.qossC, p.ratedV, tech.mosfet.gateCurrentA, fsw, vinV, w.rms(k), w.iOn(k), w.iOff(k), w.vSw(k), mos);
+        switchLoss(
+          p.ronOhm,
+          p.qgC,
+          p.qswC,
+          p.qossC,
+          p.ratedV,
+          tech.mosfet.gateCurrentA,
+          fsw,
+          vinV,
+          w.rms(k),
+          w.iOn(k),
+          w.iOff(k),
+          w.vSw(k),
+          mos,
+        );
         splitResistive(w, k, p.ronOhm, mos.conductionW, byKind);
         byKind[K_SW] += mos.switchingW;
         byKind[K_GATE] += mos.gateW;
@@ -56,7 +71,21 @@ export function computeLosses(
       }
       case 'sync': {
         const iR = w.rms(k);
-        syncLoss(p.ronOhm, p.qgC, p.qossC, p.ratedV, d.ideal ? 0 : tech.mosfet.bodyDiodeVfV, tech.mosfet.deadTimeS, fsw, vinV, iR, w.iOn(k), w.iOff(k), w.vSw(k), mos);
+        syncLoss(
+          p.ronOhm,
+          p.qgC,
+          p.qossC,
+          p.ratedV,
+          d.ideal ? 0 : tech.mosfet.bodyDiodeVfV,
+          tech.mosfet.deadTimeS,
+          fsw,
+          vinV,
+          iR,
+          w.iOn(k),
+          w.iOff(k),
+          w.vSw(k),
+          mos,
+        );
         // only the I²R part is inside the averaged duty model; dead-time diode loss is drawn extra
         const i2r = iR * iR * p.ronOhm;
         splitResistive(w, k, p.ronOhm, i2r, byKind);
@@ -132,7 +161,8 @@ function splitResistive(w: WaveSet, k: number, r: number, total: number, byKind:
 function coreLossDensity(d: Design, tech: Technology, w: WaveSet, k: number): number {
   const p = d.parts[k];
   const n = w.segments(k);
-  const coupled = p.role === 'coupled-inductor' && k + 1 < d.parts.length && d.parts[k + 1].role === 'coupled-inductor';
+  const coupled =
+    p.role === 'coupled-inductor' && k + 1 < d.parts.length && d.parts[k + 1].role === 'coupled-inductor';
   const m = coupled ? d.coupling * Math.sqrt(p.value * d.parts[k + 1].value) : 0;
   let b = 0;
   let bMax = 0;

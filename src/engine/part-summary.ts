@@ -58,11 +58,23 @@ export function summarizeParts(d: Design, tech: Technology, corners: CornerResul
           ratingA: iRms * CURRENT_RATING_MARGIN,
         };
       case 'damping-capacitor':
-        return { ...base, value: p.value, unit: 'F', detail: `${p.ratedV} V aluminium electrolytic`, ratingV: vPk / 0.8 };
+        return {
+          ...base,
+          value: p.value,
+          unit: 'F',
+          detail: `${p.ratedV} V aluminium electrolytic`,
+          ratingV: vPk / 0.8,
+        };
       case 'sense':
       case 'damping-resistor':
-        return { ...base, value: p.value, unit: 'Ω', detail: p.role === 'sense' ? 'current-sense resistor' : 'damping resistor', ratingA: iRms * CURRENT_RATING_MARGIN };
-      case 'controller':
+        return {
+          ...base,
+          value: p.value,
+          unit: 'Ω',
+          detail: p.role === 'sense' ? 'current-sense resistor' : 'damping resistor',
+          ratingA: iRms * CURRENT_RATING_MARGIN,
+        };
+      default: // controller
         return { ...base, value: 0, unit: '', detail: 'PWM controller' };
     }
   });

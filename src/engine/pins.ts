@@ -38,7 +38,9 @@ export function checkPins(d: Pick<Design, 'parts'>, pins: Record<string, number>
     const [name, suffix = ''] = key.split('.', 2);
     const part = d.parts.find((p) => p.name === name);
     if (!part) {
-      problems.push(`--set ${key}: no component ${name} in this topology (have ${d.parts.map((p) => p.name).join(', ')})`);
+      problems.push(
+        `--set ${key}: no component ${name} in this topology (have ${d.parts.map((p) => p.name).join(', ')})`,
+      );
       continue;
     }
     const allowed = ALLOWED[part.role] ?? [];
@@ -48,7 +50,9 @@ export function checkPins(d: Pick<Design, 'parts'>, pins: Record<string, number>
       continue;
     }
     if (!Number.isFinite(value) || value < 0 || (suffix === '' && value === 0)) {
-      problems.push(`--set ${key}: ${value} is not a valid ${PIN_FIELDS[suffix].what} (must be ${suffix === '' ? '> 0' : '≥ 0'})`);
+      problems.push(
+        `--set ${key}: ${value} is not a valid ${PIN_FIELDS[suffix].what} (must be ${suffix === '' ? '> 0' : '≥ 0'})`,
+      );
     }
   }
   return problems;

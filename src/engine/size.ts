@@ -15,7 +15,13 @@ import { dcBiasFactor, pickCeramicClass, sizeCeramicBank } from '../parts/capaci
 import { designDampingLeg } from '../parts/damping.ts';
 import { diodeVolumeMm3, pickDiodeClass } from '../parts/diode.ts';
 import { areaProductM4, sizeInductorCore, windingDcr } from '../parts/inductor.ts';
-import { chargeLossPerArea, hotRonFactor, mosfetVolumeMm3, optimalArea, pickMosfetClass } from '../parts/mosfet.ts';
+import {
+  chargeLossPerArea,
+  hotRonFactor,
+  mosfetVolumeMm3,
+  optimalArea,
+  pickMosfetClass,
+} from '../parts/mosfet.ts';
 import type { Technology } from '../parts/technology.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import type { OperatingScalars, Topology } from '../topologies/topology.ts';
@@ -80,7 +86,13 @@ function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet):
 
 const settable = (p: PartDesign, field: string) => !p.pinned.has(field);
 
-export function sizeDesign(topology: Topology, d: Design, spec: RailSpec, tech: Technology, corners: Corner[]): Reason[] {
+export function sizeDesign(
+  topology: Topology,
+  d: Design,
+  spec: RailSpec,
+  tech: Technology,
+  corners: Corner[],
+): Reason[] {
   const w = new WaveSet(d.parts.length);
   const comps = topology.components(d.params.rect);
   const reasons: Reason[] = [];
@@ -90,7 +102,8 @@ export function sizeDesign(topology: Topology, d: Design, spec: RailSpec, tech: 
     const p = d.parts[k];
     const rule = comps[k].sizing;
     if ((rule.kind === 'inductor' || rule.kind === 'winding') && settable(p, 'value')) p.value = 1;
-    if ((rule.kind === 'capacitor' || rule.kind === 'damping-capacitor') && settable(p, 'value')) p.value = 1e-3;
+    if ((rule.kind === 'capacitor' || rule.kind === 'damping-capacitor') && settable(p, 'value'))
+      p.value = 1e-3;
   }
   // pass 0: inductors from the ripple ratio (ripple at 1 H scales as 1/L)
   const e0 = envelope(topology, d, corners, w);
@@ -103,13 +116,15 @@ export function sizeDesign(topology: Topology, d: Design, spec: RailSpec, tech: 
   }
   for (let k = 0; k < d.parts.length; k++) {
     const rule = comps[k].sizing;
-    if (rule.kind === 'winding' && settable(d.parts[k], 'value')) d.parts[k].value = partByName(d, rule.of).value;
+    if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
+      d.parts[k].value = partByName(d, rule.of).value;
   }
 
   for (let pass = 0; pass < 2; pass++) {
     const e = envelope(topology, d, corners, w);
     reasons.length = 0;
-    for (let k = 0; k < d.parts.length; k++) sizePart(topology, d, spec, tech, corners, comps[k].sizing, k, e, w, reasons);
+    for (let k = 0; k < d.parts.length; k++)
+      sizePart(topology, d, spec, tech, corners, comps[k].sizing, k, e, w, reasons);
   }
   return reasons;
 }
@@ -154,8 +169,18 @@ function sizePart(
         topology.operate(d, c.vinV, c.ioutA, w, s);
         const iR = w.rms(k);
         const a = iR * iR * cls.ronSpecOhmMm2 * hot;
-        let b = chargeLossPerArea(tech, cls, fsw, c.vinV, w.vSw(k), w.iOn(k), w.iOff(k), rule.kind === 'switch');
-        if (rule.kind === 'sync' && w.vSw(k) > 0) b += 0.5 * cls.qossSpecCPerMm2 * Math.sqrt(w.vSw(k) / cls.vdsV) * w.vSw(k) * fsw;
+        let b = chargeLossPerArea(
+          tech,
+          cls,
+          fsw,
+          c.vinV,
+          w.vSw(k),
+          w.iOn(k),
+          w.iOff(k),
+          rule.kind === 'switch',
+        );
+        if (rule.kind === 'sync' && w.vSw(k) > 0)
+          b += 0.5 * cls.qossSpecCPerMm2 * Math.sqrt(w.vSw(k) / cls.vdsV) * w.vSw(k) * fsw;
         const cost = a > 0 && b > 0 ? 2 * Math.sqrt(a * b) : a + b;
         if (cost > best) {
           best = cost;
@@ -205,7 +230,8 @@ function sizePart(
         next.units = 0; // same part
         next.volumeMm3 = 0;
         next.coreM3 = 0;
-        if (settable(next, 'dcrOhm')) next.dcrOhm = windingDcr(tech, size.copperM3 * (1 - share), e.iRms[k + 1]);
+        if (settable(next, 'dcrOhm'))
+          next.dcrOhm = windingDcr(tech, size.copperM3 * (1 - share), e.iRms[k + 1]);
       }
       return;
     }
@@ -253,9 +279,13 @@ function sizePart(
       if (rule.kind === 'damping-capacitor') {
         if (settable(p, 'value')) p.value = leg.cdF;
         p.nominalF = p.value;
-        p.ratedV = ELECTROLYTIC_CLASSES_V.find((v) => v * 0.8 >= e.vPeak[k]) ?? ELECTROLYTIC_CLASSES_V.at(-1)!;
+        p.ratedV =
+          ELECTROLYTIC_CLASSES_V.find((v) => v * 0.8 >= e.vPeak[k]) ?? ELECTROLYTIC_CLASSES_V.at(-1)!;
         if (settable(p, 'esrOhm')) p.esrOhm = d.ideal ? 0 : tech.capacitor.electrolyticEsrOhm;
-        p.volumeMm3 = Math.max(tech.capacitor.electrolyticMinMm3, tech.capacitor.electrolyticMm3PerUfV * p.value * 1e6 * p.ratedV);
+        p.volumeMm3 = Math.max(
+          tech.capacitor.electrolyticMinMm3,
+          tech.capacitor.electrolyticMm3PerUfV * p.value * 1e6 * p.ratedV,
+        );
       } else {
         if (settable(p, 'value')) p.value = leg.rdOhm;
         p.volumeMm3 = 10;
@@ -265,7 +295,9 @@ function sizePart(
     case 'sense': {
       const of = d.parts.findIndex((x) => x.name === rule.of);
       const ipk = e.iPeak[of];
-      if (settable(p, 'value')) p.value = tech.sense.thresholdV > 0 && ipk > 0 ? tech.sense.thresholdV / (tech.sense.limitMargin * ipk) : 0;
+      if (settable(p, 'value'))
+        p.value =
+          tech.sense.thresholdV > 0 && ipk > 0 ? tech.sense.thresholdV / (tech.sense.limitMargin * ipk) : 0;
       p.units = p.value > 0 ? 1 : 0;
       p.volumeMm3 = p.units * tech.sense.volumeMm3;
       return;

@@ -3,8 +3,9 @@
  * Everything is SI: volts, amperes, ohms, henries, farads, hertz, seconds, watts, cubic metres
  * (volumes are reported in mm³ only at the objective/report edge, as the field name says).
  */
-import type { RailSpec } from '../spec/rail-spec.ts';
+
 import type { Technology } from '../parts/technology.ts';
+import type { RailSpec } from '../spec/rail-spec.ts';
 
 export type TopologyId =
   | 'sepic'

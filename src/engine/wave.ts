@@ -48,7 +48,16 @@ export class WaveSet {
   }
 
   /** Set a three-segment waveform. */
-  set3(k: number, f: Fractions3, a0: number, b0: number, a1: number, b1: number, a2: number, b2: number): void {
+  set3(
+    k: number,
+    f: Fractions3,
+    a0: number,
+    b0: number,
+    a1: number,
+    b1: number,
+    a2: number,
+    b2: number,
+  ): void {
     const o = k * WAVE_STRIDE;
     const w = this.data;
     w[o] = 3;

@@ -34,7 +34,11 @@ export interface DampingLeg {
   f0Hz: number;
 }
 
-export function designDampingLeg(inductanceH: number, capacitanceF: number, target = DAMPING_PEAK_TARGET): DampingLeg {
+export function designDampingLeg(
+  inductanceH: number,
+  capacitanceF: number,
+  target = DAMPING_PEAK_TARGET,
+): DampingLeg {
   const n = dampingRatioForPeak(target);
   const r0Ohm = Math.sqrt(inductanceH / capacitanceF);
   return {

@@ -22,7 +22,11 @@ export function evaluateForStudy(
   params: CandidateParams,
   tech: Technology,
 ): CandidateEvaluation {
-  const { corners: _corners, parts: _parts, ...rest } = evaluateCandidate(spec, params, tech, {}, { partList: false });
+  const {
+    corners: _corners,
+    parts: _parts,
+    ...rest
+  } = evaluateCandidate(spec, params, tech, {}, { partList: false });
   return rest;
 }
 

@@ -8,13 +8,24 @@
 import type { Caution } from '../engine/types.ts';
 import { formatSi } from '../units/format.ts';
 
-export function rhpZeroHz(rLoadOhm: number, duty: number, inductanceH: number, kind: 'boost' | 'buck-boost'): number {
+export function rhpZeroHz(
+  rLoadOhm: number,
+  duty: number,
+  inductanceH: number,
+  kind: 'boost' | 'buck-boost',
+): number {
   const dp = 1 - duty;
-  const w = kind === 'boost' ? (dp * dp * rLoadOhm) / inductanceH : (dp * dp * rLoadOhm) / (duty * inductanceH);
+  const w =
+    kind === 'boost' ? (dp * dp * rLoadOhm) / inductanceH : (dp * dp * rLoadOhm) / (duty * inductanceH);
   return w / (2 * Math.PI);
 }
 
-export function rhpZeroCaution(rLoadOhm: number, duty: number, inductanceH: number, kind: 'boost' | 'buck-boost'): Caution {
+export function rhpZeroCaution(
+  rLoadOhm: number,
+  duty: number,
+  inductanceH: number,
+  kind: 'boost' | 'buck-boost',
+): Caution {
   const fz = rhpZeroHz(rLoadOhm, duty, inductanceH, kind);
   return {
     code: 'rhp-zero',

@@ -4,13 +4,18 @@ import type { Caution } from '../engine/types.ts';
 import { designDampingLeg } from '../parts/damping.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatSi } from '../units/format.ts';
+import { rhpZeroCaution } from './rhp-zero.ts';
 import type { SepicVariant } from './sepic-core.ts';
 import type { OperatingScalars } from './topology.ts';
-import { rhpZeroCaution } from './rhp-zero.ts';
 
 const part = (d: Design, name: string) => d.parts.find((p) => p.name === name);
 
-export function sepicCautions(d: Design, spec: RailSpec, nominal: OperatingScalars, variant: SepicVariant): Caution[] {
+export function sepicCautions(
+  d: Design,
+  spec: RailSpec,
+  nominal: OperatingScalars,
+  variant: SepicVariant,
+): Caution[] {
   const out: Caution[] = [];
   const l1 = part(d, 'L1')?.value ?? 0;
   const l2 = part(d, 'L2')?.value ?? 0;
@@ -20,7 +25,8 @@ export function sepicCautions(d: Design, spec: RailSpec, nominal: OperatingScala
     // An input step drives the series loop L1–Cs–L2: an undamped series LC rings to twice the step
     // (common practice); only winding and ESR resistance damp it.
     const leg = designDampingLeg(loopL, cs);
-    const rSeries = (part(d, 'L1')?.dcrOhm ?? 0) + (part(d, 'L2')?.dcrOhm ?? 0) + (part(d, 'Cs')?.esrOhm ?? 0);
+    const rSeries =
+      (part(d, 'L1')?.dcrOhm ?? 0) + (part(d, 'L2')?.dcrOhm ?? 0) + (part(d, 'Cs')?.esrOhm ?? 0);
     const q = rSeries > 0 ? leg.r0Ohm / rSeries : Number.POSITIVE_INFINITY;
     const stepV = spec.step ? Math.abs(spec.step.toV - spec.step.fromV) : 0.5 * spec.input.nomV;
     out.push({

@@ -17,8 +17,8 @@
  * inductance per winding gives the separate design's ripple when k → 1 (common practice).
  */
 import type { Design } from '../engine/design.ts';
-import type { WaveSet } from '../engine/wave.ts';
 import type { RectifierKind } from '../engine/types.ts';
+import type { WaveSet } from '../engine/wave.ts';
 import type { ComponentSpec, OperatingScalars } from './topology.ts';
 
 export type SepicVariant = 'separate' | 'coupled' | 'damped';
@@ -27,25 +27,65 @@ export function sepicComponents(variant: SepicVariant, rect: RectifierKind): Com
   const coupled = variant === 'coupled';
   const list: ComponentSpec[] = [
     { name: 'Q1', role: 'switch', duty: 'main switch (low side)', sizing: { kind: 'switch' } },
-    { name: 'Rsense', role: 'sense', duty: 'current-sense resistor in the switch source', sizing: { kind: 'sense', of: 'Q1' } },
+    {
+      name: 'Rsense',
+      role: 'sense',
+      duty: 'current-sense resistor in the switch source',
+      sizing: { kind: 'sense', of: 'Q1' },
+    },
     rect === 'diode'
       ? { name: 'D1', role: 'diode', duty: 'output rectifier', sizing: { kind: 'diode' } }
       : { name: 'Q2', role: 'sync', duty: 'synchronous output rectifier', sizing: { kind: 'sync' } },
     coupled
-      ? { name: 'L1', role: 'coupled-inductor', duty: 'input winding of the coupled inductor', sizing: { kind: 'inductor' } }
+      ? {
+          name: 'L1',
+          role: 'coupled-inductor',
+          duty: 'input winding of the coupled inductor',
+          sizing: { kind: 'inductor' },
+        }
       : { name: 'L1', role: 'inductor', duty: 'input inductor', sizing: { kind: 'inductor' } },
     coupled
-      ? { name: 'L2', role: 'coupled-inductor', duty: 'output winding of the coupled inductor (same part as L1)', sizing: { kind: 'winding', of: 'L1' } }
+      ? {
+          name: 'L2',
+          role: 'coupled-inductor',
+          duty: 'output winding of the coupled inductor (same part as L1)',
+          sizing: { kind: 'winding', of: 'L1' },
+        }
       : { name: 'L2', role: 'inductor', duty: 'inductor to ground', sizing: { kind: 'inductor' } },
-    { name: 'Cs', role: 'capacitor', duty: 'coupling capacitor', sizing: { kind: 'capacitor', ripple: 'coupling' } },
-    { name: 'Cin', role: 'capacitor', duty: 'input capacitor', sizing: { kind: 'capacitor', ripple: 'input' } },
-    { name: 'Cout', role: 'capacitor', duty: 'output capacitor', sizing: { kind: 'capacitor', ripple: 'output' } },
+    {
+      name: 'Cs',
+      role: 'capacitor',
+      duty: 'coupling capacitor',
+      sizing: { kind: 'capacitor', ripple: 'coupling' },
+    },
+    {
+      name: 'Cin',
+      role: 'capacitor',
+      duty: 'input capacitor',
+      sizing: { kind: 'capacitor', ripple: 'input' },
+    },
+    {
+      name: 'Cout',
+      role: 'capacitor',
+      duty: 'output capacitor',
+      sizing: { kind: 'capacitor', ripple: 'output' },
+    },
     { name: 'U1', role: 'controller', duty: 'current-mode controller', sizing: { kind: 'controller' } },
   ];
   if (variant === 'damped') {
     list.push(
-      { name: 'Cd', role: 'damping-capacitor', duty: 'damping-leg capacitor (electrolytic) across Cs', sizing: { kind: 'damping-capacitor', of: 'Cs' } },
-      { name: 'Rd', role: 'damping-resistor', duty: 'damping-leg resistor in series with Cd', sizing: { kind: 'damping-resistor', of: 'Cs' } },
+      {
+        name: 'Cd',
+        role: 'damping-capacitor',
+        duty: 'damping-leg capacitor (electrolytic) across Cs',
+        sizing: { kind: 'damping-capacitor', of: 'Cs' },
+      },
+      {
+        name: 'Rd',
+        role: 'damping-resistor',
+        duty: 'damping-leg resistor in series with Cd',
+        sizing: { kind: 'damping-resistor', of: 'Cs' },
+      },
     );
   }
   return list;
@@ -65,7 +105,13 @@ const CD = 9;
 const RD = 10;
 
 /** Ripple (A peak-to-peak) of two windings over one interval of length t with winding voltages v1, v2. */
-export function windingRipples(d: Design, v1: number, v2: number, t: number, out: { r1: number; r2: number }): void {
+export function windingRipples(
+  d: Design,
+  v1: number,
+  v2: number,
+  t: number,
+  out: { r1: number; r2: number },
+): void {
   const l1 = d.parts[L1].value;
   const l2 = d.parts[L2].value;
   const k = d.coupling;

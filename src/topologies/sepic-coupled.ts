@@ -1,6 +1,7 @@
 /** SEPIC with both windings on one core (one two-winding part, L1 = L2 enforced). */
-import { operateSepic, sepicComponents } from './sepic-core.ts';
+
 import { sepicCautions } from './sepic-cautions.ts';
+import { operateSepic, sepicComponents } from './sepic-core.ts';
 import type { Topology } from './topology.ts';
 
 export const sepicCoupled: Topology = {

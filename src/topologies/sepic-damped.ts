@@ -1,6 +1,7 @@
 /** SEPIC with separate inductors and an Rd–Cd damping leg across the coupling capacitor. */
-import { operateSepic, sepicComponents } from './sepic-core.ts';
+
 import { sepicCautions } from './sepic-cautions.ts';
+import { operateSepic, sepicComponents } from './sepic-core.ts';
 import type { Topology } from './topology.ts';
 
 export const sepicDamped: Topology = {

@@ -1,6 +1,7 @@
 /** SEPIC with two separate inductors. */
-import { operateSepic, sepicComponents } from './sepic-core.ts';
+
 import { sepicCautions } from './sepic-cautions.ts';
+import { operateSepic, sepicComponents } from './sepic-core.ts';
 import type { Topology } from './topology.ts';
 
 export const sepic: Topology = {

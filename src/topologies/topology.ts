@@ -4,9 +4,9 @@
  * then runs against it.
  */
 import type { Design } from '../engine/design.ts';
+import type { Caution, ComponentInfo, Mode, Reason, RectifierKind, TopologyId } from '../engine/types.ts';
 import type { WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
-import type { Caution, ComponentInfo, Mode, Reason, RectifierKind, TopologyId } from '../engine/types.ts';
 
 /** How the generic sizer chooses a component's value. */
 export type SizingRule =

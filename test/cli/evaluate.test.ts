@@ -25,11 +25,18 @@ describe('straddle evaluate', () => {
     expect(typeof j.feasible).toBe('boolean');
     expect(Array.isArray(j.reasons)).toBe(true);
     expect(Object.keys(j.objectives).sort()).toEqual(['lossW', 'parts', 'stress', 'volumeMm3']);
-    expect(j.corners.map((c: { label: string }) => c.label)).toEqual(['vin-min', 'vin-nom', 'vin-max', 'light-load']);
+    expect(j.corners.map((c: { label: string }) => c.label)).toEqual([
+      'vin-min',
+      'vin-nom',
+      'vin-max',
+      'light-load',
+    ]);
     const c = j.corners[0];
-    for (const key of ['vinV', 'ioutA', 'voutV', 'duty', 'mode', 'efficiency', 'lossW']) expect(c).toHaveProperty(key);
+    for (const key of ['vinV', 'ioutA', 'voutV', 'duty', 'mode', 'efficiency', 'lossW'])
+      expect(c).toHaveProperty(key);
     for (const name of ['Q1', 'D1', 'L1', 'L2', 'Cs', 'Cin', 'Cout', 'Rsense']) {
-      for (const key of ['value', 'iAvgA', 'iRmsA', 'iPeakA', 'iPpA', 'vPeakV', 'vPpV']) expect(c.components[name]).toHaveProperty(key);
+      for (const key of ['value', 'iAvgA', 'iRmsA', 'iPeakA', 'iPpA', 'vPeakV', 'vPpV'])
+        expect(c.components[name]).toHaveProperty(key);
     }
     // the demo rail at 400 kHz: a 12 V, 2 A SEPIC must land in the efficiency range an engineer expects
     expect(c.efficiency).toBeGreaterThan(0.85);
@@ -38,7 +45,21 @@ describe('straddle evaluate', () => {
   });
 
   it('accepts pins and the ideal technology', async () => {
-    const r = await run(['evaluate', DEMO, '--topology', 'sepic', '--fsw', '250 kHz', '--tech', 'ideal', '--set', 'L1=22u', '--set', 'L1.dcr=20m', '--json']);
+    const r = await run([
+      'evaluate',
+      DEMO,
+      '--topology',
+      'sepic',
+      '--fsw',
+      '250 kHz',
+      '--tech',
+      'ideal',
+      '--set',
+      'L1=22u',
+      '--set',
+      'L1.dcr=20m',
+      '--json',
+    ]);
     expect(r.code).toBe(0);
     const j = JSON.parse(r.out);
     expect(j.corners[0].components.L1.value).toBe(22e-6);
@@ -47,7 +68,19 @@ describe('straddle evaluate', () => {
   });
 
   it('rejects bad options with exit 2 and every message, never a stack trace', async () => {
-    const r = await run(['evaluate', DEMO, '--topology', 'flyback', '--fsw', '400 kV', '--ripple=-1', '--rect', 'magic', '--set', 'L1']);
+    const r = await run([
+      'evaluate',
+      DEMO,
+      '--topology',
+      'flyback',
+      '--fsw',
+      '400 kV',
+      '--ripple=-1',
+      '--rect',
+      'magic',
+      '--set',
+      'L1',
+    ]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/--topology flyback/);
     expect(r.err).toMatch(/--fsw 400 kV/);
@@ -58,7 +91,18 @@ describe('straddle evaluate', () => {
   });
 
   it('rejects pins of components the topology does not have', async () => {
-    const r = await run(['evaluate', DEMO, '--topology', 'sepic', '--fsw', '400k', '--set', 'L3=1u', '--set', 'Cs.dcr=1m']);
+    const r = await run([
+      'evaluate',
+      DEMO,
+      '--topology',
+      'sepic',
+      '--fsw',
+      '400k',
+      '--set',
+      'L3=1u',
+      '--set',
+      'Cs.dcr=1m',
+    ]);
     expect(r.code).toBe(2);
     expect(r.err).toMatch(/no component L3/);
     expect(r.err).toMatch(/cannot pin that on Cs/);
@@ -67,14 +111,22 @@ describe('straddle evaluate', () => {
   it('rejects an invalid spec file with every problem, exit 2', async () => {
     const dir = mkdtempSync(join(tmpdir(), 'straddle-'));
     const file = join(dir, 'bad.yaml');
-    writeFileSync(file, 'name: bad\ninput: { min: 20, nom: 12, max: 14 }\noutput: { voltage: 1 MV }\nload: { max: 0 }\nripple: { output: 50m }\nswitching: { min: 5k, max: 1M }\n');
+    writeFileSync(
+      file,
+      'name: bad\ninput: { min: 20, nom: 12, max: 14 }\noutput: { voltage: 1 MV }\nload: { max: 0 }\nripple: { output: 50m }\nswitching: { min: 5k, max: 1M }\n',
+    );
     const r = await run(['evaluate', file, '--topology', 'sepic', '--fsw', '400k']);
     expect(r.code).toBe(2);
-    for (const field of ['input.min', 'output.voltage', 'load.max', 'switching.min']) expect(r.err).toContain(field);
+    for (const field of ['input.min', 'output.voltage', 'load.max', 'switching.min'])
+      expect(r.err).toContain(field);
   });
 
   it('runs as `npx straddle` through the package bin', () => {
-    const out = execFileSync(process.execPath, ['bin/straddle.js', 'evaluate', DEMO, '--topology', 'sepic-coupled', '--fsw', '300k', '--json'], { encoding: 'utf8' });
+    const out = execFileSync(
+      process.execPath,
+      ['bin/straddle.js', 'evaluate', DEMO, '--topology', 'sepic-coupled', '--fsw', '300k', '--json'],
+      { encoding: 'utf8' },
+    );
     expect(JSON.parse(out).topology).toBe('sepic-coupled');
   });
 });

@@ -34,9 +34,20 @@ function run(ex: WorkedExample): CornerResult {
   if (i.l2H) pins.L2 = i.l2H;
   if (i.csF) pins.Cs = i.csF;
   if (i.coutF) pins.Cout = i.coutF;
-  const spec = railSpec({ vin: i.vinV, vout, iout, imin: iout, switching: { minHz: i.fswHz, maxHz: i.fswHz } });
+  const spec = railSpec({
+    vin: i.vinV,
+    vout,
+    iout,
+    imin: iout,
+    switching: { minHz: i.fswHz, maxHz: i.fswHz },
+  });
   // synchronous rectification keeps the textbook's CCM assumption at any load (forced CCM)
-  const ev = evaluateCandidate(spec, { topology: TOPOLOGY[ex.topology], fswHz: i.fswHz, ripple: 0.3, rect: 'sync' }, ideal, pins);
+  const ev = evaluateCandidate(
+    spec,
+    { topology: TOPOLOGY[ex.topology], fswHz: i.fswHz, ripple: 0.3, rect: 'sync' },
+    ideal,
+    pins,
+  );
   return ev.corners[0];
 }
 
@@ -68,7 +79,9 @@ function actual(key: string, c: CornerResult, ex: WorkedExample): number | undef
     case 'il1MinA':
       return Math.abs(L1.iAvgA) - L1.iPpA / 2;
     case 'iinAvgA':
-      return c.components.Q1 && ex.topology !== 'cuk' && ex.topology !== 'sepic' ? Math.abs(c.components.Q1.iAvgA) : Math.abs(L1.iAvgA);
+      return c.components.Q1 && ex.topology !== 'cuk' && ex.topology !== 'sepic'
+        ? Math.abs(c.components.Q1.iAvgA)
+        : Math.abs(L1.iAvgA);
     case 'qPeakA':
       return c.components[mainSwitch(c)].iPeakA;
     case 'dAvgA':
@@ -91,7 +104,10 @@ describe('published worked examples', () => {
       let checked = 0;
       if (ex.inputs.duty !== undefined && ex.expected.voutV !== undefined) {
         // the example fixes the duty and prints the output: the engine, asked for that output, must find that duty
-        expectClose(c.duty, ex.inputs.duty, { rtol: Math.max(ex.precision.voutV, 1e-9), what: `${ex.id} duty for the printed output` });
+        expectClose(c.duty, ex.inputs.duty, {
+          rtol: Math.max(ex.precision.voutV, 1e-9),
+          what: `${ex.id} duty for the printed output`,
+        });
         checked++;
       }
       for (const [key, expected] of Object.entries(ex.expected)) {

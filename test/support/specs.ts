@@ -1,7 +1,14 @@
 /** Rail specs built directly (already in SI) for engine tests; the zod boundary is tested on its own. */
 import type { RailSpec } from '../../src/spec/rail-spec.ts';
 
-export function railSpec(over: Partial<RailSpec> & { vin?: [number, number, number] | number; vout?: number; iout?: number; imin?: number } = {}): RailSpec {
+export function railSpec(
+  over: Partial<RailSpec> & {
+    vin?: [number, number, number] | number;
+    vout?: number;
+    iout?: number;
+    imin?: number;
+  } = {},
+): RailSpec {
   const vin = over.vin ?? [10, 12.8, 14.6];
   const [minV, nomV, maxV] = typeof vin === 'number' ? [vin, vin, vin] : vin;
   const iout = over.iout ?? 2;

@@ -31,11 +31,28 @@ const rails = fc.record({
   ripple: fc.constantFrom(0.2, 0.3, 0.4, 0.6),
 });
 
-function evaluate(id: string, rect: RectifierKind, r: fc.Arbitrary<unknown> extends never ? never : { vout: number; below: number; above: number; iout: number; fsw: number; ripple: number }, t = tech): Evaluation {
+function evaluate(
+  id: string,
+  rect: RectifierKind,
+  r: fc.Arbitrary<unknown> extends never
+    ? never
+    : { vout: number; below: number; above: number; iout: number; fsw: number; ripple: number },
+  t = tech,
+): Evaluation {
   const vmin = r.vout * r.below;
   const vmax = r.vout * r.above;
-  const spec = railSpec({ vin: [vmin, Math.sqrt(vmin * vmax), vmax], vout: r.vout, iout: r.iout, ripple: { outputVpp: 0.02 * r.vout } });
-  const params: CandidateParams = { topology: id as CandidateParams['topology'], fswHz: r.fsw, ripple: r.ripple, rect };
+  const spec = railSpec({
+    vin: [vmin, Math.sqrt(vmin * vmax), vmax],
+    vout: r.vout,
+    iout: r.iout,
+    ripple: { outputVpp: 0.02 * r.vout },
+  });
+  const params: CandidateParams = {
+    topology: id as CandidateParams['topology'],
+    fswHz: r.fsw,
+    ripple: r.ripple,
+    rect,
+  };
   return evaluateCandidate(spec, params, t);
 }
 
@@ -46,11 +63,17 @@ for (const topology of TOPOLOGIES.values()) {
         fc.assert(
           fc.property(rails, (r) => {
             const ev = evaluate(topology.id, rect, r);
-            for (const c of ev.corners as (Evaluation['corners'][number] & { iinA: number; lossByKind: Record<string, number> })[]) {
+            for (const c of ev.corners as (Evaluation['corners'][number] & {
+              iinA: number;
+              lossByKind: Record<string, number>;
+            })[]) {
               if (c.mode === 'dcm') continue; // DCM corners carry approximate drops
               const pin = c.vinV * c.iinA;
               const expected = c.poutW + c.lossByKind.conduction;
-              expect(Math.abs(pin - expected), `${c.label}: Vin·Iin ${pin} vs Pout + conduction ${expected}`).toBeLessThanOrEqual(1e-6 * expected);
+              expect(
+                Math.abs(pin - expected),
+                `${c.label}: Vin·Iin ${pin} vs Pout + conduction ${expected}`,
+              ).toBeLessThanOrEqual(1e-6 * expected);
             }
           }),
           { numRuns: 40 },
@@ -67,7 +90,9 @@ for (const topology of TOPOLOGIES.values()) {
               for (const [name, s] of Object.entries(c.components)) {
                 for (const v of Object.values(s)) expect(Number.isFinite(v), `${c.label} ${name}`).toBe(true);
                 if (name.startsWith('C') && s.iRmsA > 0) {
-                  expect(Math.abs(s.iAvgA), `${c.label} ${name} average current`).toBeLessThanOrEqual(1e-9 * Math.max(1, s.iRmsA));
+                  expect(Math.abs(s.iAvgA), `${c.label} ${name} average current`).toBeLessThanOrEqual(
+                    1e-9 * Math.max(1, s.iRmsA),
+                  );
                 }
               }
             }
@@ -82,7 +107,9 @@ for (const topology of TOPOLOGIES.values()) {
             const ev = evaluate(topology.id, rect, r, ideal);
             // a damping resistor is a designed part, not a parasitic: it dissipates on any technology
             for (const c of ev.corners) {
-              const designed = Object.entries(c.components).filter(([n]) => n === 'Rd').reduce((a, [, s]) => a + s.lossW, 0);
+              const designed = Object.entries(c.components)
+                .filter(([n]) => n === 'Rd')
+                .reduce((a, [, s]) => a + s.lossW, 0);
               expect(c.lossW - designed, c.label).toBeLessThan(1e-12 * c.poutW + 1e-15);
             }
           }),
@@ -95,11 +122,18 @@ for (const topology of TOPOLOGIES.values()) {
       fc.assert(
         fc.property(rails, fc.double({ min: 1.05, max: 4, noNaN: true }), (r, factor) => {
           const low = evaluate(topology.id, topology.rectifiers[0], r);
-          const high = evaluate(topology.id, topology.rectifiers[0], { ...r, fsw: Math.min(r.fsw * factor, 2e6) });
+          const high = evaluate(topology.id, topology.rectifiers[0], {
+            ...r,
+            fsw: Math.min(r.fsw * factor, 2e6),
+          });
           // A mode-changing stage may move a corner into another operating region when the minimum
           // on-time grows with frequency (four-switch: boost → transition); its waveform then changes
           // shape, so the comparison only holds while every full-load corner keeps its mode.
-          const modes = (e: Evaluation) => e.corners.filter((c) => c.label !== 'light-load').map((c) => c.mode).join();
+          const modes = (e: Evaluation) =>
+            e.corners
+              .filter((c) => c.label !== 'light-load')
+              .map((c) => c.mode)
+              .join();
           fc.pre(modes(low) === modes(high));
           for (const p of low.parts.filter((x) => x.unit === 'H')) {
             const other = high.parts.find((x) => x.name === p.name)!;
@@ -111,7 +145,14 @@ for (const topology of TOPOLOGIES.values()) {
     });
 
     it('reports every component at every corner, and objectives that are finite and positive', () => {
-      const ev = evaluate(topology.id, topology.rectifiers[0], { vout: 12, below: 0.8, above: 1.25, iout: 2, fsw: 300e3, ripple: 0.3 });
+      const ev = evaluate(topology.id, topology.rectifiers[0], {
+        vout: 12,
+        below: 0.8,
+        above: 1.25,
+        iout: 2,
+        fsw: 300e3,
+        ripple: 0.3,
+      });
       const names = topology.components(topology.rectifiers[0]).map((c) => c.name);
       for (const c of ev.corners) expect(Object.keys(c.components).sort()).toEqual([...names].sort());
       for (const v of Object.values(ev.objectives)) {

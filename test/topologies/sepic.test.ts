@@ -36,7 +36,8 @@ describe('SEPIC (separate inductors)', () => {
   it('charges the coupling capacitor to the input voltage (E&M ch. 2)', () => {
     const spec = railSpec({ vin: [9, 12, 16], vout: 12, iout: 2 });
     const ev = evaluateCandidate(spec, params('sepic', { rect: 'sync' }), ideal);
-    for (const c of ev.corners) expectClose(c.components.Cs.vPeakV, c.vinV, { rtol: 1e-9, what: `${c.label} Vcs` });
+    for (const c of ev.corners)
+      expectClose(c.components.Cs.vPeakV, c.vinV, { rtol: 1e-9, what: `${c.label} Vcs` });
   });
 
   it('finds the loss-inclusive duty that an independent energy balance gives (pinned DCRs, ideal parts otherwise)', () => {
@@ -49,7 +50,10 @@ describe('SEPIC (separate inductors)', () => {
     const r1 = 0.05;
     const r2 = 0.08;
     const spec = railSpec({ vin, vout, iout });
-    const ev = evaluateCandidate(spec, params('sepic', { rect: 'sync' }), ideal, { 'L1.dcr': r1, 'L2.dcr': r2 });
+    const ev = evaluateCandidate(spec, params('sepic', { rect: 'sync' }), ideal, {
+      'L1.dcr': r1,
+      'L2.dcr': r2,
+    });
     const f = (D: number) => {
       const il1 = (iout * D) / (1 - D);
       return vin * il1 - (vout * iout + il1 * il1 * r1 + iout * iout * r2);
@@ -67,7 +71,10 @@ describe('SEPIC (separate inductors)', () => {
 
   it('enters DCM at light load with a diode, at the duty of the buck-boost family (E&M ch. 5: D = M·√K)', () => {
     const spec = railSpec({ vin: 12, vout: 12, iout: 2, imin: 0.05 });
-    const ev = evaluateCandidate(spec, params('sepic', { rect: 'diode', fswHz: 200e3 }), ideal, { L1: 47e-6, L2: 47e-6 });
+    const ev = evaluateCandidate(spec, params('sepic', { rect: 'diode', fswHz: 200e3 }), ideal, {
+      L1: 47e-6,
+      L2: 47e-6,
+    });
     const light = ev.corners.find((c) => c.label === 'light-load')!;
     expect(light.mode).toBe('dcm');
     const le = (47e-6 * 47e-6) / (47e-6 + 47e-6);
@@ -143,7 +150,10 @@ describe('damped SEPIC', () => {
     expectClose(get('Rd'), optimalDampingQ(n) * r0, { rtol: 1e-9, what: 'Rd' });
     // E&M worked figures for n = 5 (from memory, and re-derived by a numerical minimax in this project's notes)
     expectClose(optimalDampingQ(5), 0.5437, { rtol: 2e-4, what: 'Q_opt(n=5)' });
-    expectClose(dampedPeakImpedanceRatio(5), Math.sqrt(14) / 5, { rtol: 1e-12, what: 'peak impedance ratio' });
+    expectClose(dampedPeakImpedanceRatio(5), Math.sqrt(14) / 5, {
+      rtol: 1e-12,
+      what: 'peak impedance ratio',
+    });
     expect(ev.cautions.map((c) => c.code)).not.toContain('resonant-overshoot');
   });
 });
