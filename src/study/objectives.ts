@@ -81,12 +81,21 @@ function formatPair(key: ObjectiveKey, a: number, b: number): [string, string] {
   return [f(a, 8), f(b, 8)];
 }
 
+/**
+ * Relative difference below which two continuous objectives are called "about the same" in words
+ * (the ranking itself stays exact): estimates carry far more uncertainty than half a percent.
+ */
+export const PRACTICAL_TIE = 0.005;
+
 /** One difference in words, from the subject's side. */
 export function describeDelta(d: ObjectiveDelta): string {
   const f = (v: number) => formatObjective(d.objective, v);
   const [value, other] = formatPair(d.objective, d.value, d.other);
   const vs = `${value} vs ${other}`;
   if (d.delta === 0) return `same ${OBJECTIVE_WORDS[d.objective].noun} (${value})`;
+  if (d.objective !== 'parts' && Math.abs(d.relative) < PRACTICAL_TIE) {
+    return `about the same ${OBJECTIVE_WORDS[d.objective].noun} (${vs}, ${formatRelative(d.relative)})`;
+  }
   const more = d.delta > 0;
   switch (d.objective) {
     case 'parts': {
