@@ -3,9 +3,11 @@
  * quoted, quotes doubled): one row per candidate. Text cells that a spreadsheet would read as a formula
  * (starting with =, +, -, @, tab or carriage return) are prefixed with a single quote, the usual
  * neutralisation against CSV injection (common practice, OWASP "CSV Injection" page). Numbers are
- * written as numbers and left alone, so a negative value stays a number.
+ * written as numbers and left alone, so a negative value stays a number. The last row carries the
+ * safety caution (id cell `caution`).
  */
 import type { Study } from '../study/types.ts';
+import { SAFETY_CAUTION } from './study-markdown.ts';
 
 export const STUDY_CSV_COLUMNS = [
   'id',
@@ -63,5 +65,7 @@ export function renderStudyCsv(study: Study): string {
     c.verdict.text,
     c.cautions.map((k) => k.code).join('; '),
   ]);
-  return [[...STUDY_CSV_COLUMNS], ...rows].map((r) => `${r.map(csvCell).join(',')}\r\n`).join('');
+  // the safety caution travels with the file: a last row whose id cell is `caution`, padded to full width
+  const caution: Cell[] = ['caution', SAFETY_CAUTION, ...Array(STUDY_CSV_COLUMNS.length - 2).fill(null)];
+  return [[...STUDY_CSV_COLUMNS], ...rows, caution].map((r) => `${r.map(csvCell).join(',')}\r\n`).join('');
 }

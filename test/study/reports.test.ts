@@ -59,8 +59,9 @@ describe('CSV', () => {
     };
     const rows = parseCsv(renderStudyCsv(study));
     expect(rows[0]).toEqual([...STUDY_CSV_COLUMNS]);
-    expect(rows).toHaveLength(study.candidates.length + 1);
+    expect(rows).toHaveLength(study.candidates.length + 2);
     for (const r of rows) expect(r).toHaveLength(STUDY_CSV_COLUMNS.length);
+    expect(rows.at(-1)?.slice(0, 2)).toEqual(['caution', SAFETY_CAUTION]);
     const explanation = STUDY_CSV_COLUMNS.indexOf('explanation');
     expect(rows[1][explanation]).toBe(`'=HYPERLINK("http://x", "click"), then "more"`);
     expect(rows[4][explanation]).toBe(study.candidates[3].verdict.text);
