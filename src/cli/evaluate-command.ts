@@ -3,6 +3,7 @@ import { parseArgs } from 'node:util';
 import { createDesign, evaluateCandidate } from '../engine/evaluate.ts';
 import { checkPins } from '../engine/pins.ts';
 import type { RectifierKind } from '../engine/types.ts';
+import { SAFETY_CAUTION } from '../report/study-markdown.ts';
 import { loadSpecFile, loadTechnology } from '../spec/load.ts';
 import { getTopology, topologyIds } from '../topologies/registry.ts';
 import { parsePins, quantityOption, UsageError } from './args.ts';
@@ -59,7 +60,7 @@ export function evaluateCommand(argv: string[]): string {
   const ev = evaluateCandidate(spec, params, tech, pins);
   if (values.json) {
     const { corners, ...rest } = ev;
-    return `${JSON.stringify({ ...rest, corners }, null, 2)}\n`;
+    return `${JSON.stringify({ ...rest, corners, caution: SAFETY_CAUTION }, null, 2)}\n`;
   }
   return renderEvaluationText(spec, ev);
 }

@@ -1,5 +1,6 @@
 /** Plain-text rendering of one evaluation for the terminal. */
 import type { Evaluation } from '../engine/types.ts';
+import { SAFETY_CAUTION } from '../report/study-markdown.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatPercent, formatSi } from '../units/format.ts';
 
@@ -27,9 +28,6 @@ export function renderEvaluationText(spec: RailSpec, ev: Evaluation): string {
     lines.push('', 'cautions:');
     for (const c of ev.cautions) lines.push(`  - ${c.message}`);
   }
-  lines.push(
-    '',
-    'Estimates for topology selection only: verify with a simulator and on hardware, check thermal, creepage and clearance, and defer to local codes and licensed practice.',
-  );
+  lines.push('', SAFETY_CAUTION);
   return `${lines.join('\n')}\n`;
 }

@@ -42,6 +42,7 @@ describe('straddle evaluate', () => {
     expect(c.efficiency).toBeGreaterThan(0.85);
     expect(c.efficiency).toBeLessThan(0.97);
     expect(c.voutV).toBe(12);
+    expect(j.caution).toMatch(/verify with a circuit simulator and on hardware/);
   });
 
   it('accepts pins and the ideal technology', async () => {
