@@ -4,7 +4,10 @@
  */
 import type { Design, PartDesign } from './design.ts';
 
-export const PIN_FIELDS: Record<string, { field: keyof PartDesign & string; unit: string; what: string }> = {
+export const PIN_FIELDS: Record<
+  string,
+  { field: (keyof PartDesign & string) | 'coupling'; unit: string; what: string }
+> = {
   '': { field: 'value', unit: '', what: 'value' },
   dcr: { field: 'dcrOhm', unit: 'Ω', what: 'winding resistance' },
   esr: { field: 'esrOhm', unit: 'Ω', what: 'equivalent series resistance' },
@@ -15,6 +18,8 @@ export const PIN_FIELDS: Record<string, { field: keyof PartDesign & string; unit
   qg: { field: 'qgC', unit: 'C', what: 'gate charge' },
   qsw: { field: 'qswC', unit: 'C', what: 'switching charge' },
   qoss: { field: 'qossC', unit: 'C', what: 'output charge' },
+  /** Coupling coefficient of a two-winding part (a property of the pair; pinned on its first winding). */
+  k: { field: 'coupling', unit: '', what: 'coupling coefficient' },
 };
 
 /** Which suffixes make sense for which roles. */
@@ -23,7 +28,7 @@ const ALLOWED: Record<string, string[]> = {
   sync: ['ron', 'qg', 'qoss'],
   diode: ['vf', 'rd', 'cj'],
   inductor: ['', 'dcr'],
-  'coupled-inductor': ['', 'dcr'],
+  'coupled-inductor': ['', 'dcr', 'k'],
   capacitor: ['', 'esr'],
   'damping-capacitor': ['', 'esr'],
   sense: [''],
@@ -49,6 +54,10 @@ export function checkPins(d: Pick<Design, 'parts'>, pins: Record<string, number>
       problems.push(`--set ${key}: cannot pin that on ${name} (${part.role}); pinnable: ${list}`);
       continue;
     }
+    if (suffix === 'k' && !(value > 0 && value <= 1)) {
+      problems.push(`--set ${key}: coupling ${value} must lie in (0, 1]`);
+      continue;
+    }
     if (!Number.isFinite(value) || value < 0 || (suffix === '' && value === 0)) {
       problems.push(
         `--set ${key}: ${value} is not a valid ${PIN_FIELDS[suffix].what} (must be ${suffix === '' ? '> 0' : '≥ 0'})`,
@@ -64,6 +73,10 @@ export function applyPins(d: Design, pins: Record<string, number>): void {
     const part = d.parts.find((p) => p.name === name);
     const f = PIN_FIELDS[suffix];
     if (!part || !f) continue;
+    if (suffix === 'k') {
+      d.coupling = value;
+      continue;
+    }
     (part as unknown as Record<string, number>)[f.field] = value;
     part.pinned.add(f.field);
   }

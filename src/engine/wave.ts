@@ -8,12 +8,17 @@
  * segments, each with a fraction of the period and its start and end value. From that list the
  * average, RMS, extremes and the charge a capacitor must absorb follow exactly.
  *
+ * A segment may also bow: a constant second derivative (a capacitor's ripple voltage ramping across a
+ * tightly coupled winding) makes it a parabola, stored as its midpoint's departure w from the chord.
+ * Over a segment x ∈ [0,1]: p(x) = a + (b−a)·x + 4w·x(1−x); mean (a+b)/2 + 2w/3, mean square
+ * (a²+ab+b²)/3 + 2w(a+b)/3 + 8w²/15 (exact integrals of the parabola).
+ *
  * Storage is a flat Float64Array so the corner evaluation allocates nothing.
  */
 
 export const MAX_SEGMENTS = 4;
-/** Slots per component: [n, f0..f3, a0..a3, b0..b3, vPeak, vDc, iOn, iOff, vSw]. */
-export const WAVE_STRIDE = 6 + 3 * MAX_SEGMENTS;
+/** Slots per component: [n, f0..f3, a0..a3, b0..b3, vPeak, vDc, iOn, iOff, vSw, w0..w3]. */
+export const WAVE_STRIDE = 6 + 4 * MAX_SEGMENTS;
 const F = 1;
 const A = 1 + MAX_SEGMENTS;
 const B = 1 + 2 * MAX_SEGMENTS;
@@ -22,6 +27,8 @@ const VDC = VPEAK + 1;
 const ION = VPEAK + 2;
 const IOFF = VPEAK + 3;
 const VSW = VPEAK + 4;
+/** Bow of each segment: midpoint minus the chord's midpoint (0 for straight segments). */
+const W = VPEAK + 5;
 
 /** A set of per-component piecewise-linear current waveforms plus each part's peak and DC voltage. */
 export class WaveSet {
@@ -70,6 +77,14 @@ export class WaveSet {
     w[o + B] = b0;
     w[o + B + 1] = b1;
     w[o + B + 2] = b2;
+  }
+
+  /** Bow segment j of component k: its midpoint lies `bow` above the straight chord from a to b. */
+  setBow(k: number, j: number, bow: number): void {
+    this.data[k * WAVE_STRIDE + W + j] = bow;
+  }
+  bow(k: number, j: number): number {
+    return this.data[k * WAVE_STRIDE + W + j];
   }
 
   /** A constant current (DC through the whole period). */
@@ -122,61 +137,69 @@ export class WaveSet {
     return this.data[k * WAVE_STRIDE + VDC];
   }
 
-  /** Average over the period: Σ f·(a+b)/2. */
+  /** Average over the period: Σ f·((a+b)/2 + 2w/3). */
   average(k: number): number {
     const o = k * WAVE_STRIDE;
-    const w = this.data;
+    const d = this.data;
     let s = 0;
-    for (let j = 0; j < w[o]; j++) s += w[o + F + j] * 0.5 * (w[o + A + j] + w[o + B + j]);
+    for (let j = 0; j < d[o]; j++)
+      s += d[o + F + j] * (0.5 * (d[o + A + j] + d[o + B + j]) + (2 / 3) * d[o + W + j]);
     return s;
   }
 
-  /** RMS over the period: the mean square of a line from a to b is (a² + ab + b²)/3. */
+  /** RMS over the period: a segment's mean square is (a² + ab + b²)/3 + 2w(a+b)/3 + 8w²/15. */
   rms(k: number): number {
     const o = k * WAVE_STRIDE;
-    const w = this.data;
+    const d = this.data;
     let s = 0;
-    for (let j = 0; j < w[o]; j++) {
-      const a = w[o + A + j];
-      const b = w[o + B + j];
-      s += (w[o + F + j] * (a * a + a * b + b * b)) / 3;
+    for (let j = 0; j < d[o]; j++) {
+      const a = d[o + A + j];
+      const b = d[o + B + j];
+      const w = d[o + W + j];
+      s += d[o + F + j] * ((a * a + a * b + b * b) / 3 + (2 * w * (a + b)) / 3 + (8 * w * w) / 15);
     }
     return Math.sqrt(s);
   }
 
   /**
-   * Mean square of the segment means, Σ f·((a+b)/2)²: the part of I²R loss that an averaged model
-   * with resistive drops carries; rms² minus this is the ripple part Σ f·(b−a)²/12.
+   * Mean square of the segment means, Σ f·m²: the part of I²R loss that an averaged model with
+   * resistive drops carries; rms² minus this is the ripple part.
    */
   meanSquareOfMeans(k: number): number {
     const o = k * WAVE_STRIDE;
-    const w = this.data;
+    const d = this.data;
     let s = 0;
-    for (let j = 0; j < w[o]; j++) {
-      const m = 0.5 * (w[o + A + j] + w[o + B + j]);
-      s += w[o + F + j] * m * m;
+    for (let j = 0; j < d[o]; j++) {
+      const m = 0.5 * (d[o + A + j] + d[o + B + j]) + (2 / 3) * d[o + W + j];
+      s += d[o + F + j] * m * m;
     }
     return s;
   }
 
   max(k: number): number {
-    const o = k * WAVE_STRIDE;
-    const w = this.data;
-    let m = Number.NEGATIVE_INFINITY;
-    for (let j = 0; j < w[o]; j++) {
-      if (w[o + F + j] <= 0) continue;
-      m = Math.max(m, w[o + A + j], w[o + B + j]);
-    }
-    return m;
+    return this.extreme(k, 1);
   }
 
   min(k: number): number {
+    return -this.extreme(k, -1);
+  }
+
+  /** Largest value of sign·i over the period (segment ends, and a bowed segment's vertex). */
+  private extreme(k: number, sign: number): number {
     const o = k * WAVE_STRIDE;
-    const w = this.data;
-    let m = Number.POSITIVE_INFINITY;
-    for (let j = 0; j < w[o]; j++) {
-      if (w[o + F + j] <= 0) continue;
-      m = Math.min(m, w[o + A + j], w[o + B + j]);
+    const d = this.data;
+    let m = Number.NEGATIVE_INFINITY;
+    for (let j = 0; j < d[o]; j++) {
+      if (d[o + F + j] <= 0) continue;
+      const a = sign * d[o + A + j];
+      const b = sign * d[o + B + j];
+      const w = sign * d[o + W + j];
+      m = Math.max(m, a, b);
+      if (w !== 0) {
+        // p'(x) = (b − a) + 4w(1 − 2x) = 0
+        const x = 0.5 * ((b - a) / (4 * w) + 1);
+        if (x > 0 && x < 1) m = Math.max(m, a + (b - a) * x + 4 * w * x * (1 - x));
+      }
     }
     return m;
   }
@@ -189,29 +212,59 @@ export class WaveSet {
    */
   chargeSwing(k: number): number {
     const o = k * WAVE_STRIDE;
-    const w = this.data;
+    const d = this.data;
     const mean = this.average(k);
     let q = 0;
     let qMax = 0;
     let qMin = 0;
-    for (let j = 0; j < w[o]; j++) {
-      const f = w[o + F + j];
+    for (let j = 0; j < d[o]; j++) {
+      const f = d[o + F + j];
       if (f <= 0) continue;
-      const a = w[o + A + j] - mean;
-      const b = w[o + B + j] - mean;
-      if (a * b < 0) {
-        // zero crossing at x = a/(a−b) of the segment: the parabola's vertex
-        const x = a / (a - b);
-        const qx = q + f * x * (a + (b - a) * x * 0.5);
-        if (qx > qMax) qMax = qx;
-        if (qx < qMin) qMin = qx;
+      const a = d[o + A + j] - mean;
+      const b = d[o + B + j] - mean;
+      const w = d[o + W + j];
+      // p(x) − mean = −4w·x² + (b − a + 4w)·x + a; its running integral is a cubic whose extremes
+      // lie where p crosses the mean inside the segment
+      const c2 = -4 * w;
+      const c1 = b - a + 4 * w;
+      if (Math.abs(c2) <= 1e-12 * (Math.abs(c1) + Math.abs(a))) {
+        // straight (or negligibly bowed) segment: one crossing of the mean where a and b differ in sign
+        if (a * b < 0) {
+          const qx = q + runningIntegral(f, a, c1, 0, a / (a - b));
+          if (qx > qMax) qMax = qx;
+          if (qx < qMin) qMin = qx;
+        }
+      } else {
+        const disc = c1 * c1 - 4 * c2 * a;
+        if (disc >= 0) {
+          // cancellation-free roots of c2·x² + c1·x + a
+          const r = Math.sqrt(disc);
+          const h = -0.5 * (c1 + (c1 >= 0 ? r : -r));
+          const x1 = h / c2;
+          const x2 = h !== 0 ? a / h : -1;
+          if (x1 > 0 && x1 < 1) {
+            const qx = q + runningIntegral(f, a, c1, c2, x1);
+            if (qx > qMax) qMax = qx;
+            if (qx < qMin) qMin = qx;
+          }
+          if (x2 > 0 && x2 < 1) {
+            const qx = q + runningIntegral(f, a, c1, c2, x2);
+            if (qx > qMax) qMax = qx;
+            if (qx < qMin) qMin = qx;
+          }
+        }
       }
-      q += f * 0.5 * (a + b);
+      q += runningIntegral(f, a, c1, c2, 1);
       if (q > qMax) qMax = q;
       if (q < qMin) qMin = q;
     }
     return qMax - qMin;
   }
+}
+
+/** f·∫₀ˣ (a + c1·t + c2·t²) dt: charge of a segment up to fraction x of it (period units). */
+function runningIntegral(f: number, a: number, c1: number, c2: number, x: number): number {
+  return f * x * (a + x * (c1 / 2 + (x * c2) / 3));
 }
 
 export interface Fractions3 {

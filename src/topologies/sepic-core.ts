@@ -134,6 +134,53 @@ export function windingRipples(
 }
 
 const rip = { r1: 0, r2: 0 };
+const bows = { w1on: 0, w1off: 0, w2on: 0, w2off: 0 };
+const slopes = { on: 0, off: 0 };
+
+/**
+ * Rate of change of the coupling-capacitor voltage (V/s) in each interval: its current is −IL2 while
+ * the switch is on and +IL1 while it is off (small-ripple means), over its capacitance.
+ */
+function vcsSlopes(d: Design, il1: number, il2: number): { on: number; off: number } {
+  const cs = d.parts[CS].value;
+  slopes.on = cs > 0 ? -il2 / cs : 0;
+  slopes.off = cs > 0 ? il1 / cs : 0;
+  return slopes;
+}
+
+/**
+ * Winding-current bows. With Γ = L⁻¹ (L1, L2, M = k·√(L1·L2)): on-time dv2/dt = σon, off-time
+ * dv1/dt = −σoff, so d²i/dt² = Γ·dv/dt and the midpoint bow of an interval of length t is −(d²i/dt²)·t²/8.
+ * A perfectly coupled pair (singular L) is the textbook idealisation: no bow.
+ */
+export function bowSepic(
+  d: Design,
+  sl: { on: number; off: number },
+  tOn: number,
+  tOff: number,
+  out: { w1on: number; w1off: number; w2on: number; w2off: number },
+): void {
+  const l1 = d.parts[L1].value;
+  const l2 = d.parts[L2].value;
+  const m = d.coupling > 0 ? d.coupling * Math.sqrt(l1 * l2) : 0;
+  const det = l1 * l2 - m * m;
+  if (!(det > 1e-9 * l1 * l2)) {
+    out.w1on = 0;
+    out.w1off = 0;
+    out.w2on = 0;
+    out.w2off = 0;
+    return;
+  }
+  // Γ = [[l2, −m], [−m, l1]] / det
+  const c1on = (-m * sl.on) / det;
+  const c2on = (l1 * sl.on) / det;
+  const c1off = (l2 * -sl.off) / det;
+  const c2off = (-m * -sl.off) / det;
+  out.w1on = (-c1on * tOn * tOn) / 8;
+  out.w2on = (-c2on * tOn * tOn) / 8;
+  out.w1off = (-c1off * tOff * tOff) / 8;
+  out.w2off = (-c2off * tOff * tOff) / 8;
+}
 const dcmFractions = { d0: 0, d1: 0, d2: 0 };
 
 export function operateSepic(
@@ -205,19 +252,47 @@ export function operateSepic(
   s.converged = converged || mode === 'dcm';
 
   if (mode === 'ccm') {
-    const a1 = il1 - dI1 / 2;
-    const b1 = il1 + dI1 / 2;
-    const a2 = il2 - dI2 / 2;
-    const b2 = il2 + dI2 / 2;
-    s.iinA = il1;
+    // Bow of each winding current: the coupling capacitor's ripple ramps the winding voltage that
+    // contains VCs (v2 while the switch is on, v1 while it is off), so each winding current bends with
+    // d²i/dt² from the inverse inductance matrix; a segment of length t then bows by −c·t²/8 at its
+    // midpoint. Tight coupling magnifies it (the leakage inductance is what the ramp drives).
+    bowSepic(d, vcsSlopes(d, il1, il2), D * T, Dp * T, bows);
+    const w1on = bows.w1on;
+    const w1off = bows.w1off;
+    const w2on = bows.w2on;
+    const w2off = bows.w2off;
+    // Bows raise a segment's mean by 2w/3, so the winding offsets follow again from the two charge
+    // balances: output Dp·(<i1>off + <i2>off) = Iout and coupling capacitor D·<i2>on = Dp·<i1>off.
+    // That keeps avg(iL2) = Iout exactly and moves IL1 by the bows' second-order share.
+    const s2 = -(2 / 3) * (D * w2on + Dp * w2off);
+    const s1 = (D * (s2 + (2 / 3) * w2on) - Dp * (2 / 3) * w1off) / Dp;
+    const a1 = il1 - dI1 / 2 + s1;
+    const b1 = il1 + dI1 / 2 + s1;
+    const a2 = il2 - dI2 / 2 + s2;
+    const b2 = il2 + dI2 / 2 + s2;
+    // the input current is the input winding's average, bows included
+    const iin = il1 + s1 + (2 / 3) * (D * w1on + Dp * w1off);
+    s.iinA = iin;
     w.set2(L1, D, a1, b1, b1, a1);
     w.set2(L2, D, a2, b2, b2, a2);
     w.set2(Q1, D, a1 + a2, b1 + b2, 0, 0);
     w.set2(RS, D, a1 + a2, b1 + b2, 0, 0);
     w.set2(RECT, D, 0, 0, b1 + b2, a1 + a2);
     w.set2(CS, D, -a2, -b2, b1, a1);
-    w.set2(CIN, D, -dI1 / 2, dI1 / 2, dI1 / 2, -dI1 / 2);
+    w.set2(CIN, D, a1 - iin, b1 - iin, b1 - iin, a1 - iin);
     w.set2(COUT, D, -iout, -iout, b1 + b2 - iout, a1 + a2 - iout);
+    w.setBow(L1, 0, w1on);
+    w.setBow(L1, 1, w1off);
+    w.setBow(L2, 0, w2on);
+    w.setBow(L2, 1, w2off);
+    w.setBow(Q1, 0, w1on + w2on);
+    w.setBow(RS, 0, w1on + w2on);
+    w.setBow(RECT, 1, w1off + w2off);
+    w.setBow(CS, 0, -w2on);
+    w.setBow(CS, 1, w1off);
+    w.setBow(CIN, 0, w1on);
+    w.setBow(CIN, 1, w1off);
+    w.setBow(COUT, 1, w1off + w2off);
     w.setEdges(Q1, a1 + a2, b1 + b2, vcs + vout + vd);
     w.setEdges(RECT, a1 + a2, b1 + b2, vcs + vout - isw * rq);
   } else {

@@ -42,14 +42,6 @@ const RTOL_INDUCTOR_AVG = 0.02;
 const RTOL_RIPPLE = 0.05;
 const RTOL_PEAK = 0.05;
 const RTOL_CAP_RIPPLE = 0.1;
-/**
- * Known deviation, coupled SEPIC input-capacitor ripple: ngspice gives 7.6–12.7 % more than the engine at
- * k = 0.98 (measured: 7.30 mV vs 6.48 mV at Vin = 10 V, sync). The engine takes the winding voltages as
- * constant over each interval (small-ripple approximation); with 2 % leakage the coupling capacitor's
- * 0.28 V ripple drives a differential current that bends iL1 (its peak-to-peak is still within 2.2 %),
- * and Cin integrates the bent waveform. Reported to the lead; bound set just above the measured worst case.
- */
-const RTOL_COUPLED_CIN_RIPPLE = 0.15;
 const FSW_HZ = 400e3;
 /** Source choke so Cin carries the input current's AC part, as the engine assumes (H). */
 const SOURCE_CHOKE_H = 100e-6;
@@ -180,8 +172,7 @@ describe('analytic engine against ngspice (pinned designs, ideal technology, mar
                   what: `${what} peak current`,
                 });
               } else if (p.role === 'capacitor' || p.role === 'damping-capacitor') {
-                const rtol =
-                  id === 'sepic-coupled' && p.name === 'Cin' ? RTOL_COUPLED_CIN_RIPPLE : RTOL_CAP_RIPPLE;
+                const rtol = RTOL_CAP_RIPPLE;
                 expectClose(ss.voltages[p.name].pp, a.vPpV, { rtol, what: `${what} voltage ripple` });
               }
             }

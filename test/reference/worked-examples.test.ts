@@ -34,6 +34,7 @@ function run(ex: WorkedExample): CornerResult {
   if (i.l2H) pins.L2 = i.l2H;
   if (i.csF) pins.Cs = i.csF;
   if (i.coutF) pins.Cout = i.coutF;
+  if (i.couplingK) pins['L1.k'] = i.couplingK;
   const spec = railSpec({
     vin: i.vinV,
     vout,

@@ -106,7 +106,8 @@ describe('the ideal preset', () => {
     expect(ideal.mosfet.bodyDiodeVfV).toBe(0);
     expect(ideal.inductor.material.k).toBe(0);
     expect(ideal.inductor.copperResistivityOhmM).toBe(0);
-    expect(ideal.inductor.coupling).toBe(1);
+    // coupling is not a loss: the ideal preset keeps the default's physical coupling
+    expect(ideal.inductor.coupling).toBe(real.inductor.coupling);
     expect(ideal.capacitor.dcBiasA).toBe(0);
     expect(ideal.capacitor.electrolyticEsrOhm).toBe(0);
     expect(ideal.sense.thresholdV).toBe(0);

@@ -136,8 +136,21 @@ describe('switched netlists', () => {
 
   it('writes the coupled inductor with K at the design coupling, clamped below 1', () => {
     const { pd, netlist } = setup('sepic-coupled', 'sync');
-    expect(pd.design.coupling).toBe(1); // the ideal preset's perfect coupling
-    expect(netlist.elements.find((el) => el.kind === 'K')).toMatchObject({ l1: 'L1', l2: 'L2', k: K_MAX });
+    expect(netlist.elements.find((el) => el.kind === 'K')).toMatchObject({
+      l1: 'L1',
+      l2: 'L2',
+      k: pd.design.coupling,
+    });
+    // the textbook idealisation, pinned: a perfect pair is singular, so the netlist stops just short of it
+    const perfect = pinnedDesign(
+      spec,
+      { topology: 'sepic-coupled', fswHz: 400e3, ripple: 0.3, rect: 'sync' },
+      tech,
+      { 'L1.k': 1 },
+    );
+    expect(perfect.design.coupling).toBe(1);
+    const n = buildNetlist(perfect.design, 10, 2, { duty: 0.5, duty2: 0, mode: 'ccm' });
+    expect(n.elements.find((el) => el.kind === 'K')).toMatchObject({ k: K_MAX });
   });
 
   it('places the damping leg Cd–Rd across the coupling capacitor', () => {
