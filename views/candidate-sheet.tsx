@@ -2,7 +2,7 @@
  * One candidate in full: what it is, its verdict, feasibility reasons and cautions, the part table with
  * worst-corner stresses and suggested minimum ratings (derating stated), efficiency and losses per corner.
  */
-import type { FC } from 'hono/jsx';
+import type { Child, FC } from 'hono/jsx';
 import { CURRENT_RATING_MARGIN } from '../src/engine/part-summary.ts';
 import type { ComponentStress, CornerResult, Evaluation, PartSummary } from '../src/engine/types.ts';
 import type { Technology } from '../src/parts/technology.ts';
@@ -23,6 +23,10 @@ export interface SheetProps {
   studied?: StudyCandidate;
   studyHref: string;
   jsonHref: string;
+  /** Sections the waveform engine fills (loaded as htmx fragments), after the loss breakdown. */
+  simulation?: Child;
+  /** Further downloads listed under Exports (SPICE netlist, simulated data). */
+  moreExports?: { href: string; label: string }[];
 }
 
 /** Below this magnitude a current or voltage is rounding noise of a zero (a capacitor's average current). */
@@ -213,6 +217,8 @@ export const CandidateSheet: FC<SheetProps> = ({
   studied,
   studyHref,
   jsonHref,
+  simulation,
+  moreExports = [],
 }) => {
   const lossCorners: CornerLoss[] = e.corners.map((c) => ({
     label: c.label,
@@ -300,6 +306,7 @@ export const CandidateSheet: FC<SheetProps> = ({
         <LossBars corners={lossCorners} />
         <StressDetails corners={e.corners} />
       </section>
+      {simulation}
       <section class="exports">
         <h2>Exports</h2>
         <ul>
@@ -308,6 +315,13 @@ export const CandidateSheet: FC<SheetProps> = ({
               Evaluation as JSON
             </a>
           </li>
+          {moreExports.map((x) => (
+            <li>
+              <a href={x.href} download>
+                {x.label}
+              </a>
+            </li>
+          ))}
         </ul>
       </section>
     </article>

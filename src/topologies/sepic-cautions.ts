@@ -49,8 +49,11 @@ export function sepicCautions(
         'the coupling capacitor absorbs the leakage energy, so no snubber is needed, but winding mismatch steers the ripple into one winding.',
     });
   }
-  // RHP zero: SEPIC approximated as a buck-boost whose inductance is L1 (coupled: the effective L/(1+k))
-  const lEff = variant === 'coupled' ? l1 / (1 + d.coupling) : l1;
+  // RHP zero: with a stiff coupling capacitor the SEPIC's small-signal model is that of a buck-boost
+  // whose inductance is the one the switch current sees: Le = L1‖L2 for separate windings (the same Le
+  // as its DCM analysis, Erickson & Maksimović ch. 5), and (1+k)·L/2 for equal coupled windings, whose
+  // currents each ramp at v/((1+k)·L). Checked against the averaged model of the switched circuit.
+  const lEff = variant === 'coupled' ? ((1 + d.coupling) * l1) / 2 : (l1 * l2) / (l1 + l2);
   const rLoad = spec.output.voltageV / spec.load.maxA;
   out.push(rhpZeroCaution(rLoad, nominal.duty, lEff, 'buck-boost'));
   out.push({

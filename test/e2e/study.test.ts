@@ -1,7 +1,8 @@
 /**
  * The app in a real browser (Debian's Chromium driven by playwright-core): the demo study loads, editing
  * the input range re-runs it, a bad value gets its message beside its field, a candidate sheet opens,
- * the design note downloads. The app runs in-process on a free port. Chromium missing is a failure.
+ * the design note downloads, a candidate sheet loads its waveform, transient and Bode plots as htmx
+ * fragments. The app runs in-process on a free port. Chromium missing is a failure.
  */
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
@@ -11,6 +12,7 @@ import { type ServerType, serve } from '@hono/node-server';
 import { type BrowserContext, chromium, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../src/web/app.ts';
+import { demoFormValues, encodeSpec } from '../../src/web/spec-codec.ts';
 
 const CHROMIUM = '/usr/bin/chromium';
 const ARTIFACTS = 'test-artifacts';
@@ -129,5 +131,31 @@ describe('the study in a browser', () => {
     expect(text).toContain('## Topology study: Marine instrument 12 V rail');
     expect(text).toContain('### Recommendation');
     expect(text).toContain('Estimates for topology selection only');
+  });
+
+  it('loads the waveform, transient and Bode plots on a candidate sheet', async () => {
+    const violations: string[] = [];
+    const onConsole = (m: { text(): string }) => {
+      if (/Content Security Policy|Refused to/.test(m.text())) violations.push(m.text());
+    };
+    page.on('console', onConsole);
+    const query = `s=${encodeSpec(demoFormValues('marine-lifepo4-12v'))}&fp=3&rp=0.3`;
+    await page.goto(`${base}/candidate/sepic@316k/r0.3/diode?${query}`);
+    for (const id of ['waveforms', 'transients', 'bode']) {
+      await page.locator(`section#${id}[data-state="ready"]`).waitFor({ state: 'attached', timeout: 60_000 });
+    }
+    expect(await page.locator('#waveforms svg.waveform').count()).toBeGreaterThanOrEqual(4);
+    expect(await page.locator('#transients svg.waveform').count()).toBeGreaterThanOrEqual(4);
+    expect(await page.locator('#bode g.magnitude g.freq-mark.rhp-zero').count()).toBe(1);
+    expect(await page.locator('#transients .transient-words').first().textContent()).toContain('Start-up');
+    expect(await page.locator('#transients').textContent()).toContain('Visible ringing');
+    expect(await page.locator('body').textContent()).toContain('Estimates for topology selection only');
+    const netlist = page.locator('.exports a', { hasText: 'SPICE netlist' });
+    expect(await netlist.getAttribute('href')).toContain('/netlist.cir?');
+    mkdirSync(ARTIFACTS, { recursive: true });
+    await page.locator('#waveforms').scrollIntoViewIfNeeded();
+    await page.screenshot({ path: join(ARTIFACTS, 'candidate.png'), fullPage: true });
+    page.off('console', onConsole);
+    expect(violations).toEqual([]);
   });
 });

@@ -8,6 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { evaluateCandidate } from '../../src/engine/evaluate.ts';
 import type { CandidateParams, TopologyId } from '../../src/engine/types.ts';
 import { dampedPeakImpedanceRatio, optimalDampingQ } from '../../src/parts/damping.ts';
+import { bodeCandidate } from '../../src/simulate/candidate.ts';
 import { loadTechnology } from '../../src/spec/load.ts';
 import { expectClose } from '../support/expect-close.ts';
 import { railSpec } from '../support/specs.ts';
@@ -163,4 +164,19 @@ describe('damped SEPIC', () => {
     });
     expect(ev.cautions.map((c) => c.code)).not.toContain('resonant-overshoot');
   });
+});
+
+describe('SEPIC right-half-plane zero', () => {
+  // The caution's closed form, ωz = D′²R/(D·Le) with Le = L1‖L2 (separate) or (1+k)·L/2 (coupled), against
+  // the zero of the state-space-averaged switched circuit (Middlebrook & Ćuk 1976; the buck-boost form
+  // is Erickson & Maksimović Table 8.2). The closed form ignores Cs and the losses: 1 % allowed.
+  for (const topology of ['sepic', 'sepic-coupled', 'sepic-damped'] as const) {
+    it(`${topology}: the caution's RHP zero matches the averaged model of the switched circuit`, () => {
+      const spec = railSpec({ vin: [10, 12.8, 14.6], vout: 12, iout: 2 });
+      const p = params(topology, { rect: 'sync' });
+      const model = bodeCandidate(spec, p, tech, {}, { vinV: 12.8 }).rhpZeroHz!;
+      const caution = evaluateCandidate(spec, p, tech).cautions.find((c) => c.code === 'rhp-zero')!.value!;
+      expectClose(caution, model, { rtol: 0.01, what: `${topology} RHP zero` });
+    });
+  }
 });

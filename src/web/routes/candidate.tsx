@@ -1,68 +1,26 @@
 /**
  * The candidate sheet at /candidate/<id>?<study params>, where the id reads `topology@freq/r<ripple>/<rect>`
  * and the study parameters say which grid it came from (so its exact frequency is known), and its
- * evaluation as JSON at /candidate/<id>/evaluation.json.
+ * evaluation as JSON at /candidate/<id>/evaluation.json. The sheet paints at once; its simulation
+ * sections (waveforms, transients, Bode) load as htmx fragments from candidate-waves.tsx.
  */
-import type { Context } from 'hono';
 import { Hono } from 'hono';
 import { CandidateSheet } from '../../../views/candidate-sheet.tsx';
-import { ErrorBody } from '../../../views/error-page.tsx';
+import { LazySimSection, SIM_SECTIONS, type SimSectionId } from '../../../views/candidate-waves.tsx';
 import { candidateHref } from '../../../views/links.ts';
-import { evaluateCandidate } from '../../engine/evaluate.ts';
-import type { Evaluation } from '../../engine/types.ts';
-import type { Technology } from '../../parts/technology.ts';
-import { loadTechnology } from '../../spec/load.ts';
-import type { RailSpec } from '../../spec/rail-spec.ts';
-import { planStudy } from '../../study/enumerate.ts';
-import type { StudyOptions } from '../../study/types.ts';
 import { getTopology } from '../../topologies/registry.ts';
-import { WebError } from '../errors.ts';
 import { renderPage } from '../render.tsx';
 import { SAFETY_CAUTION } from '../safety.ts';
-import { formValuesFromQuery } from '../spec-codec.ts';
-import { checkStudyInput } from '../study-request.ts';
 import type { StudyService } from '../study-service.ts';
-import { studyParams, viewFromQuery } from '../view-state.ts';
-import { queryOf } from './study.tsx';
+import { CANDIDATE_ROUTE, resolveCandidate } from './candidate-resolve.tsx';
+import { candidateWaveRoutes } from './candidate-waves.tsx';
+import { type CandidateSimulator, ENGINE_SIMULATOR } from './simulation-input.ts';
 
-export interface Resolved {
-  id: string;
-  spec: RailSpec;
-  options: StudyOptions;
-  tech: Technology;
-  evaluation: Evaluation;
-  query: string;
-}
+export { CANDIDATE_ROUTE, type Resolved, resolveCandidate } from './candidate-resolve.tsx';
 
-function firstValues(c: Context): Record<string, string> {
-  return Object.fromEntries(Object.entries(c.req.query()).map(([k, v]) => [k, v ?? '']));
-}
+const SECTION_ORDER: readonly SimSectionId[] = ['waveforms', 'transients', 'bode'];
 
-/** The candidate named by the path, evaluated in full; 422 for a bad spec, 404 for an unknown id. */
-export function resolveCandidate(c: Context): Resolved | Response | Promise<Response> {
-  const id = `${c.req.param('tf')}/${c.req.param('r')}/${c.req.param('rect')}`;
-  const values = formValuesFromQuery(firstValues(c));
-  const view = viewFromQuery(values, queryOf(c));
-  const checked = checkStudyInput(values, view.sweep);
-  if (!checked.ok) {
-    const message = `The spec in this link has ${checked.issues.length} problem(s): ${checked.issues.map((i) => i.message).join('; ')}`;
-    return renderPage(c, {
-      title: 'Input needs fixing',
-      status: 422,
-      main: () => <ErrorBody status={422} title="Input needs fixing" message={message} />,
-    });
-  }
-  const planned = planStudy(checked.spec, checked.options).candidates.find((p) => p.id === id);
-  if (!planned) throw new WebError(404, `No candidate "${id}" in this study's sweep.`);
-  const tech = loadTechnology(checked.spec.technology);
-  const evaluation = evaluateCandidate(checked.spec, planned, tech);
-  return { id, spec: checked.spec, options: checked.options, tech, evaluation, query: studyParams(view) };
-}
-
-/** Route pattern of a candidate id; exports hang below it (`${CANDIDATE_ROUTE}/netlist.cir`). */
-export const CANDIDATE_ROUTE = '/candidate/:tf{[a-z-]+@[0-9.]+[kMG]?}/:r{r[0-9.]+}/:rect{diode|sync}';
-
-export function candidateRoutes(service: StudyService): Hono {
+export function candidateRoutes(service: StudyService, sim: CandidateSimulator = ENGINE_SIMULATOR): Hono {
   const app = new Hono();
   const base = CANDIDATE_ROUTE;
 
@@ -71,6 +29,7 @@ export function candidateRoutes(service: StudyService): Hono {
     if (r instanceof Response || r instanceof Promise) return r;
     const topology = getTopology(r.evaluation.topology)!;
     const studied = service.cached(r.spec, r.options)?.candidates.find((x) => x.id === r.id);
+    const href = (suffix: string) => candidateHref(r.id, r.query, suffix);
     return renderPage(c, {
       title: `Candidate ${r.id}`,
       main: () => (
@@ -82,7 +41,15 @@ export function candidateRoutes(service: StudyService): Hono {
           tech={r.tech}
           studied={studied}
           studyHref={`/study?${r.query}`}
-          jsonHref={candidateHref(r.id, r.query, '/evaluation.json')}
+          jsonHref={href('/evaluation.json')}
+          simulation={SECTION_ORDER.map((id) => (
+            <LazySimSection id={id} href={href(SIM_SECTIONS[id].path)} />
+          ))}
+          moreExports={[
+            { href: href('/netlist.cir'), label: 'SPICE netlist (.cir, runs as is in ngspice)' },
+            { href: href('/waveforms.csv'), label: 'One simulated period as CSV' },
+            { href: href('/simulation.json'), label: 'Simulation (period, transients, Bode) as JSON' },
+          ]}
         />
       ),
     });
@@ -95,5 +62,6 @@ export function candidateRoutes(service: StudyService): Hono {
     return c.json({ caution: SAFETY_CAUTION, id: r.id, spec: r.spec, evaluation: r.evaluation });
   });
 
+  app.route('/', candidateWaveRoutes(sim));
   return app;
 }
