@@ -2,6 +2,7 @@
  * A sized (or pinned) design: one PartDesign per component of the topology, in the topology's
  * component order, plus the candidate-level choices. Plain numbers, SI units.
  */
+import type { ComponentSpec } from '../topologies/topology.ts';
 import type { CandidateParams, ComponentInfo, Role } from './types.ts';
 
 export interface PartDesign {
@@ -41,7 +42,8 @@ export interface Design {
   params: CandidateParams;
   /** Signed output voltage (V). */
   voutV: number;
-  components: ComponentInfo[];
+  /** The topology's components with their sizing rules, in slot order. */
+  components: ComponentSpec[];
   parts: PartDesign[];
   /** Coupling coefficient of a coupled inductor (0 for separate windings). */
   coupling: number;

@@ -37,7 +37,11 @@ export const BUS_RIPPLE_FRACTION = 0.02;
 export const DEFAULT_INPUT_RIPPLE_FRACTION = 0.02;
 const ELECTROLYTIC_CLASSES_V = [16, 25, 35, 50, 63, 100, 160, 250, 400];
 
-/** Worst-case figures of each component over the full-load corners. */
+/**
+ * Worst-case figures of each component over the full-load corners, plus what the die sizing needs per
+ * corner (RMS current and switching edges). Buffers are reused between candidates: a study sizes
+ * thousands of them.
+ */
 interface Envelope {
   iAvg: Float64Array;
   iRms: Float64Array;
@@ -46,41 +50,90 @@ interface Envelope {
   vPeak: Float64Array;
   vDc: Float64Array;
   chargeC: Float64Array;
+  /** Per full-load corner c and part k at c·n + k: RMS current, switched voltage, edge currents. */
+  cRms: Float64Array;
+  cVsw: Float64Array;
+  cIon: Float64Array;
+  cIoff: Float64Array;
+  /** Input voltage of each full-load corner, and how many there are. */
+  cVin: Float64Array;
+  corners: number;
+}
+
+const MAX_CORNERS = 8;
+const envelopes = new Map<number, Envelope>();
+const waveSets = new Map<number, WaveSet>();
+
+function scratch(n: number): { e: Envelope; w: WaveSet } {
+  let e = envelopes.get(n);
+  if (!e) {
+    const m = n * MAX_CORNERS;
+    e = {
+      iAvg: new Float64Array(n),
+      iRms: new Float64Array(n),
+      iPeak: new Float64Array(n),
+      iPp: new Float64Array(n),
+      vPeak: new Float64Array(n),
+      vDc: new Float64Array(n),
+      chargeC: new Float64Array(n),
+      cRms: new Float64Array(m),
+      cVsw: new Float64Array(m),
+      cIon: new Float64Array(m),
+      cIoff: new Float64Array(m),
+      cVin: new Float64Array(MAX_CORNERS),
+      corners: 0,
+    };
+    envelopes.set(n, e);
+    waveSets.set(n, new WaveSet(n));
+  }
+  return { e, w: waveSets.get(n)! };
 }
 
 export function newScalars(): OperatingScalars {
   return { duty: 0, duty2: 0, mode: 'ccm', iinA: 0, converged: true };
 }
 
-function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet): Envelope {
+const envelopeScalars = newScalars();
+
+function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet, e: Envelope): Envelope {
   const n = d.parts.length;
-  const e: Envelope = {
-    iAvg: new Float64Array(n),
-    iRms: new Float64Array(n),
-    iPeak: new Float64Array(n),
-    iPp: new Float64Array(n),
-    vPeak: new Float64Array(n),
-    vDc: new Float64Array(n),
-    chargeC: new Float64Array(n),
-  };
-  const s = newScalars();
+  e.iAvg.fill(0);
+  e.iRms.fill(0);
+  e.iPeak.fill(0);
+  e.iPp.fill(0);
+  e.vPeak.fill(0);
+  e.vDc.fill(0);
+  e.chargeC.fill(0);
+  const s = envelopeScalars;
   const T = 1 / d.params.fswHz;
+  let ci = 0;
   for (const c of corners) {
-    if (!c.fullLoad) continue;
+    if (!c.fullLoad || ci >= MAX_CORNERS) continue;
     w.data.fill(0);
     topology.operate(d, c.vinV, c.ioutA, w, s);
+    e.cVin[ci] = c.vinV;
     for (let k = 0; k < n; k++) {
       const mx = w.max(k);
       const mn = w.min(k);
+      const rms = w.rms(k);
       e.iAvg[k] = Math.max(e.iAvg[k], Math.abs(w.average(k)));
-      e.iRms[k] = Math.max(e.iRms[k], w.rms(k));
+      e.iRms[k] = Math.max(e.iRms[k], rms);
       e.iPeak[k] = Math.max(e.iPeak[k], Math.abs(mx), Math.abs(mn));
       e.iPp[k] = Math.max(e.iPp[k], mx - mn);
       e.vPeak[k] = Math.max(e.vPeak[k], w.vPeak(k));
       e.vDc[k] = Math.max(e.vDc[k], Math.abs(w.vDc(k)));
-      e.chargeC[k] = Math.max(e.chargeC[k], w.chargeSwing(k) * T);
+      const role = d.parts[k].role;
+      if (role === 'capacitor' || role === 'damping-capacitor')
+        e.chargeC[k] = Math.max(e.chargeC[k], w.chargeSwing(k) * T);
+      const at = ci * n + k;
+      e.cRms[at] = rms;
+      e.cVsw[at] = w.vSw(k);
+      e.cIon[at] = w.iOn(k);
+      e.cIoff[at] = w.iOff(k);
     }
+    ci++;
   }
+  e.corners = ci;
   return e;
 }
 
@@ -93,8 +146,8 @@ export function sizeDesign(
   tech: Technology,
   corners: Corner[],
 ): Reason[] {
-  const w = new WaveSet(d.parts.length);
-  const comps = topology.components(d.params.rect);
+  const { e: buffers, w } = scratch(d.parts.length);
+  const comps = d.components;
   const reasons: Reason[] = [];
 
   // placeholders so the first evaluation is well defined
@@ -106,7 +159,7 @@ export function sizeDesign(
       p.value = 1e-3;
   }
   // pass 0: inductors from the ripple ratio (ripple at 1 H scales as 1/L)
-  const e0 = envelope(topology, d, corners, w);
+  const e0 = envelope(topology, d, corners, w, buffers);
   for (let k = 0; k < d.parts.length; k++) {
     const p = d.parts[k];
     if (comps[k].sizing.kind === 'inductor' && settable(p, 'value')) {
@@ -121,7 +174,7 @@ export function sizeDesign(
   }
 
   for (let pass = 0; pass < 2; pass++) {
-    const e = envelope(topology, d, corners, w);
+    const e = envelope(topology, d, corners, w, buffers);
     reasons.length = 0;
     for (let k = 0; k < d.parts.length; k++)
       sizePart(topology, d, spec, tech, corners, comps[k].sizing, k, e, w, reasons);
@@ -160,27 +213,26 @@ function sizePart(
       p.ratedV = cls.vdsV;
       // die for least loss at the corner where the optimum loss 2√(ab) is largest
       const hot = hotRonFactor(tech, spec.ambientC);
-      const s = newScalars();
       let best = -1;
       let area = tech.mosfet.minAreaMm2;
-      for (const c of corners) {
-        if (!c.fullLoad) continue;
-        w.data.fill(0);
-        topology.operate(d, c.vinV, c.ioutA, w, s);
-        const iR = w.rms(k);
+      const n = d.parts.length;
+      for (let ci = 0; ci < e.corners; ci++) {
+        const at = ci * n + k;
+        const iR = e.cRms[at];
+        const vSw = e.cVsw[at];
         const a = iR * iR * cls.ronSpecOhmMm2 * hot;
         let b = chargeLossPerArea(
           tech,
           cls,
           fsw,
-          c.vinV,
-          w.vSw(k),
-          w.iOn(k),
-          w.iOff(k),
+          e.cVin[ci],
+          vSw,
+          e.cIon[at],
+          e.cIoff[at],
           rule.kind === 'switch',
         );
-        if (rule.kind === 'sync' && w.vSw(k) > 0)
-          b += 0.5 * cls.qossSpecCPerMm2 * Math.sqrt(w.vSw(k) / cls.vdsV) * w.vSw(k) * fsw;
+        if (rule.kind === 'sync' && vSw > 0)
+          b += 0.5 * cls.qossSpecCPerMm2 * Math.sqrt(vSw / cls.vdsV) * vSw * fsw;
         const cost = a > 0 && b > 0 ? 2 * Math.sqrt(a * b) : a + b;
         if (cost > best) {
           best = cost;
