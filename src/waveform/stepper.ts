@@ -156,6 +156,12 @@ export function resolveDiodes(ctx: StepContext, x: Float64Array, mask: number): 
     if (worst < 0) return mask;
     mask ^= ctx.diodes[worst].bit;
   }
+  // Greedy flipping can cycle when diodes interact (two rectifiers sharing one inductor at zero current).
+  // With few diodes, search every combination of the diode bits for a consistent one, the one with
+  // the fewest flips from the present mask first (a small linear complementarity problem, solved by
+  // enumeration).
+  const consistent = enumerateDiodes(ctx, x, mask);
+  if (consistent >= 0) return consistent;
   throw new SimulationError(
     'event-chatter',
     'simulation could not settle: diodes keep flipping at one instant',
@@ -164,6 +170,49 @@ export function resolveDiodes(ctx: StepContext, x: Float64Array, mask: number): 
       diodes: ctx.diodes.map((d) => d.name),
     },
   );
+}
+
+/** Largest number of diodes the instant-resolution search enumerates (2^n configurations). */
+const ENUMERATE_MAX_DIODES = 8;
+
+function enumerateDiodes(ctx: StepContext, x: Float64Array, mask: number): number {
+  const n = ctx.diodes.length;
+  if (n === 0 || n > ENUMERATE_MAX_DIODES) return -1;
+  let allBits = 0;
+  for (const d of ctx.diodes) allBits |= d.bit;
+  // Score of a combination: hard violations (margin beyond tolerance) rule it out; a diode sitting
+  // within tolerance of its threshold but heading the wrong way is a soft violation (it changes state
+  // at the next event anyway). Best: no violation, then fewest soft ones, then fewest flips.
+  let best = -1;
+  let bestSoft = Number.POSITIVE_INFINITY;
+  let bestFlips = Number.POSITIVE_INFINITY;
+  for (let combo = 0; combo < 1 << n; combo++) {
+    let candidate = mask & ~allBits;
+    let flips = 0;
+    for (let k = 0; k < n; k++) {
+      const on = (combo >> k) & 1;
+      if (on) candidate |= ctx.diodes[k].bit;
+      if (((mask & ctx.diodes[k].bit) !== 0) !== (on === 1)) flips++;
+    }
+    const ss = ctx.circuit.configuration(candidate);
+    let soft = 0;
+    let hard = false;
+    for (const d of ctx.diodes) {
+      const g = diodeMargin(ctx, ss, d, x);
+      if (g < -1) {
+        hard = true;
+        break;
+      }
+      if (Math.abs(g) <= 1 && diodeMarginRate(ctx, ss, d, x) < 0) soft++;
+    }
+    if (hard) continue;
+    if (soft < bestSoft || (soft === bestSoft && flips < bestFlips)) {
+      best = candidate;
+      bestSoft = soft;
+      bestFlips = flips;
+    }
+  }
+  return best;
 }
 
 /** Earliest s in [0, h] where a diode's margin crosses zero, by Illinois regula falsi on the exact solution. */
