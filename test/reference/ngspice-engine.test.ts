@@ -18,6 +18,10 @@
  * duty 1.5 %, inductor average 2 %, inductor ripple and switch/rectifier peaks 5 %, capacitor ripple 10 %.
  * Diodes run with CJO = 0 so ngspice's instantaneous peaks carry no junction-charge spike (the engine has
  * none); with gear integration every point ran.
+ *
+ * The same netlist also goes through the waveform engine's exact periodic steady state
+ * (src/waveform/steady-state.ts), compared with ngspice at averages 2 %, ripple (currents and capacitor
+ * voltages) and peaks 5 %.
  */
 import { readFileSync } from 'node:fs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -32,6 +36,7 @@ import type { RailSpec } from '../../src/spec/rail-spec.ts';
 import { buildNetlist, seedInitialState } from '../../src/topologies/netlists/index.ts';
 import { getTopology } from '../../src/topologies/registry.ts';
 import type { OperatingScalars } from '../../src/topologies/topology.ts';
+import { solvePeriodicSteadyState } from '../../src/waveform/steady-state.ts';
 import { expectClose } from '../support/expect-close.ts';
 import { Ngspice, type PeriodicSteadyState, periodicSteadyState } from '../support/ngspice.ts';
 import { pinnedDesign } from '../support/pinned-design.ts';
@@ -174,6 +179,38 @@ describe('analytic engine against ngspice (pinned designs, ideal technology, mar
               } else if (p.role === 'capacitor' || p.role === 'damping-capacitor') {
                 const rtol = RTOL_CAP_RIPPLE;
                 expectClose(ss.voltages[p.name].pp, a.vPpV, { rtol, what: `${what} voltage ripple` });
+              }
+            }
+
+            // The waveform engine's exact periodic steady state of the same netlist against ngspice:
+            // the same circuit in both, so averages within 2 %, ripple and peaks within 5 %.
+            const wf = solvePeriodicSteadyState(netlist);
+            for (const p of pd.design.parts) {
+              const i = wf.metrics[`i(${p.name})`];
+              const v = wf.metrics[`v(${p.name})`];
+              if (!i || !v || !ss.currents[p.name]) continue;
+              const what = `${label} ${p.name} (waveform engine vs ngspice)`;
+              if (p.role === 'inductor' || p.role === 'coupled-inductor') {
+                expectClose(i.avg, ss.currents[p.name].avg, {
+                  rtol: RTOL_INDUCTOR_AVG,
+                  what: `${what} average`,
+                });
+                expectClose(i.max - i.min, ss.currents[p.name].pp, {
+                  rtol: RTOL_RIPPLE,
+                  what: `${what} ripple`,
+                });
+              } else if (p.role === 'switch' || p.role === 'sync' || p.role === 'diode') {
+                const peak = Math.max(Math.abs(i.max), Math.abs(i.min));
+                expectClose(peak, ss.currents[p.name].peakAbs, {
+                  rtol: RTOL_PEAK,
+                  atol: 1e-3 * scaleA,
+                  what: `${what} peak`,
+                });
+              } else if (p.role === 'capacitor' || p.role === 'damping-capacitor') {
+                expectClose(v.max - v.min, ss.voltages[p.name].pp, {
+                  rtol: RTOL_RIPPLE,
+                  what: `${what} voltage ripple`,
+                });
               }
             }
           });
