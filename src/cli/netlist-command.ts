@@ -7,7 +7,7 @@ import { parseArgs } from 'node:util';
 import { netlistCandidate } from '../simulate/candidate.ts';
 import type { Analysis } from '../simulate/types.ts';
 import { UsageError } from './args.ts';
-import { CANDIDATE_OPTIONS, parseCandidateArgs } from './simulate-command.ts';
+import { CANDIDATE_OPTIONS, parseCandidateArgs } from './candidate-args.ts';
 
 export function netlistCommand(argv: string[]): string {
   const { values, positionals } = parseArgs({
