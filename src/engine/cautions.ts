@@ -1,18 +1,14 @@
 /** Cautions that follow from any topology's numbers (the topology adds its own). */
 import type { Topology } from '../topologies/topology.ts';
 import { formatSi } from '../units/format.ts';
+import type { CornerFigures } from './corner-figures.ts';
 import type { Design } from './design.ts';
-import type { Caution, Corner, CornerResult } from './types.ts';
+import type { Caution } from './types.ts';
 
 /** Input-capacitor RMS current above this fraction of the input current marks pulsating input (common practice). */
 export const PULSATING_INPUT_RATIO = 0.5;
 
-export function generalCautions(
-  topology: Topology,
-  d: Design,
-  corners: Corner[],
-  results: CornerResult[],
-): Caution[] {
+export function generalCautions(topology: Topology, d: Design, figures: CornerFigures[]): Caution[] {
   const out: Caution[] = [];
   if (topology.outputSign < 0) {
     out.push({
@@ -21,12 +17,10 @@ export function generalCautions(
     });
   }
   let worst = 0;
-  for (let i = 0; i < results.length; i++) {
-    if (!corners[i].fullLoad) continue;
-    const r = results[i];
-    const cin = r.components.Cin;
+  for (const r of figures) {
+    if (!r.fullLoad) continue;
     const iin = r.pinW / r.vinV;
-    if (cin && iin > 0) worst = Math.max(worst, cin.iRmsA / iin);
+    if (r.cinRmsA !== undefined && iin > 0) worst = Math.max(worst, r.cinRmsA / iin);
   }
   if (worst > PULSATING_INPUT_RATIO) {
     out.push({
@@ -35,7 +29,7 @@ export function generalCautions(
       message: `Pulsating input current: the input capacitor carries ${(worst * 100).toFixed(0)} % of the input current as RMS ripple; expect an input filter (and its damping) to meet conducted-emission limits.`,
     });
   }
-  const light = results.find((_r, i) => !corners[i].fullLoad);
+  const light = figures.find((r) => !r.fullLoad);
   if (light?.mode === 'dcm') {
     out.push({
       code: 'light-load-dcm',

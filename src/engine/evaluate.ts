@@ -5,24 +5,25 @@
 import type { Technology } from '../parts/technology.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { getTopology } from '../topologies/registry.ts';
-import type { OperatingScalars, Topology } from '../topologies/topology.ts';
+import type { ComponentSpec, Topology } from '../topologies/topology.ts';
 import { generalCautions } from './cautions.ts';
-import { cornersFor, nominalCorner } from './corners.ts';
-import { blankPart, type Design } from './design.ts';
-import { computeLosses, LOSS_KINDS } from './losses.ts';
+import {
+  type CornerDetail,
+  cornerDetail,
+  operateWithLosses,
+  resetScalars,
+  scratchFor,
+} from './corner-evaluate.ts';
+import { type CornerFigures, cornerReasons, nominalFigures } from './corner-figures.ts';
+import { cornersFor } from './corners.ts';
+import { blankPart, type Design, ROLE_DIODE, ROLE_SWITCH, ROLE_SYNC, resetPart } from './design.ts';
 import { summarizeParts } from './part-summary.ts';
 import { applyPins } from './pins.ts';
 import { newScalars, sizeDesign } from './size.ts';
-import type {
-  CandidateParams,
-  ComponentStress,
-  Corner,
-  CornerResult,
-  Evaluation,
-  Pins,
-  Reason,
-} from './types.ts';
-import { WaveSet } from './wave.ts';
+import type { CandidateParams, Corner, Evaluation, Pins, Reason, RectifierKind } from './types.ts';
+
+// the corner loop and its record live in corner-evaluate.ts; importers reach them through here too
+export { type CornerDetail, evaluateCorner, operateWithLosses } from './corner-evaluate.ts';
 
 export class EngineError extends Error {
   constructor(
@@ -35,10 +36,24 @@ export class EngineError extends Error {
   }
 }
 
-export interface CornerDetail extends CornerResult {
-  iinA: number;
-  duty2: number;
-  lossByKind: Record<string, number>;
+/**
+ * A topology's component list for a rectifier choice, built once per topology and rectifier (it is
+ * fixed data; a study would otherwise rebuild it for every candidate). Designs share it read-only.
+ */
+const componentLists = new WeakMap<Topology, Map<RectifierKind, ComponentSpec[]>>();
+
+function componentsOf(topology: Topology, rect: RectifierKind): ComponentSpec[] {
+  let byRect = componentLists.get(topology);
+  if (!byRect) {
+    byRect = new Map();
+    componentLists.set(topology, byRect);
+  }
+  let list = byRect.get(rect);
+  if (!list) {
+    list = topology.components(rect);
+    byRect.set(rect, list);
+  }
+  return list;
 }
 
 export function createDesign(
@@ -48,20 +63,50 @@ export function createDesign(
   tech: Technology,
   pins: Pins = {},
 ): Design {
-  const comps = topology.components(params.rect);
+  return buildDesign(topology, spec, params, tech, pins, undefined);
+}
+
+/** createDesign, optionally into a design built earlier for the same component list (reset in place). */
+function buildDesign(
+  topology: Topology,
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins,
+  reuse: Design | undefined,
+): Design {
+  const comps = componentsOf(topology, params.rect);
   const fsw = params.fswHz;
-  const d: Design = {
-    params,
-    voutV: topology.outputSign * spec.output.voltageV,
-    components: comps,
-    parts: comps.map(blankPart),
-    coupling: comps.some((c) => c.role === 'coupled-inductor') ? tech.inductor.coupling : 0,
-    busV: 0,
-    busMargin: tech.busMargin,
-    ideal: tech.ideal,
-    dutyMin: tech.controller.minOnS * fsw,
-    dutyMax: Math.min(tech.controller.maxDuty, 1 - tech.controller.minOffS * fsw),
-  };
+  const voutV = topology.outputSign * spec.output.voltageV;
+  const coupling = comps.some((c) => c.role === 'coupled-inductor') ? tech.inductor.coupling : 0;
+  const dutyMin = tech.controller.minOnS * fsw;
+  const dutyMax = Math.min(tech.controller.maxDuty, 1 - tech.controller.minOffS * fsw);
+  let d: Design;
+  if (reuse && reuse.components === comps) {
+    d = reuse;
+    d.params = params;
+    d.voutV = voutV;
+    for (const p of d.parts) resetPart(p);
+    d.coupling = coupling;
+    d.busV = 0;
+    d.busMargin = tech.busMargin;
+    d.ideal = tech.ideal;
+    d.dutyMin = dutyMin;
+    d.dutyMax = dutyMax;
+  } else {
+    d = {
+      params,
+      voutV,
+      components: comps,
+      parts: comps.map(blankPart),
+      coupling,
+      busV: 0,
+      busMargin: tech.busMargin,
+      ideal: tech.ideal,
+      dutyMin,
+      dutyMax,
+    };
+  }
   applyPins(d, pins);
   topology.prepare?.(d, spec);
   return d;
@@ -82,13 +127,31 @@ export function designCandidate(
   tech: Technology,
   pins: Pins = {},
 ): SizedCandidate {
+  return sizeCandidate(spec, params, tech, pins, false);
+}
+
+/**
+ * One reusable design per component list for the summary path: its result holds no reference to the
+ * design, so the next candidate of the same topology and rectifier may overwrite it.
+ */
+const scratchDesigns = new WeakMap<ComponentSpec[], Design>();
+
+function sizeCandidate(
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins,
+  reuseScratch: boolean,
+): SizedCandidate {
   const topology = getTopology(params.topology);
   if (!topology) throw new EngineError(`unknown topology ${params.topology}`, 'topology');
   if (!topology.rectifiers.includes(params.rect)) {
     throw new EngineError(`${params.topology} has no ${params.rect} rectifier variant`, 'rect');
   }
   const corners = cornersFor(spec, topology);
-  const design = createDesign(topology, spec, params, tech, pins);
+  const reuse = reuseScratch ? scratchDesigns.get(componentsOf(topology, params.rect)) : undefined;
+  const design = buildDesign(topology, spec, params, tech, pins, reuse);
+  if (reuseScratch) scratchDesigns.set(design.components, design);
   const reasons: Reason[] = [];
   if (
     spec.output.polarity !== 'either' &&
@@ -109,6 +172,9 @@ export interface EvaluateOptions {
   partList?: boolean;
 }
 
+/** An evaluation without its per-corner records and part list: what a study keeps of each candidate. */
+export type EvaluationSummary = Omit<Evaluation, 'corners' | 'parts'>;
+
 export function evaluateCandidate(
   spec: RailSpec,
   params: CandidateParams,
@@ -116,12 +182,91 @@ export function evaluateCandidate(
   pins: Pins = {},
   options: EvaluateOptions = {},
 ): Evaluation {
-  const { topology, design: d, corners, reasons } = designCandidate(spec, params, tech, pins);
-  const results = corners.map((c) => evaluateCorner(topology, d, tech, c));
-  reasons.push(...cornerReasons(topology, d, spec, corners, results));
+  const sized = designCandidate(spec, params, tech, pins);
+  const corners: CornerDetail[] = [];
+  const summary = summarizeCandidate(spec, sized, tech, corners);
+  return {
+    ...summary,
+    corners,
+    parts: options.partList === false ? [] : summarizeParts(sized.design, tech, corners),
+  };
+}
+
+/**
+ * The same evaluation without the per-corner component records and the part list (a study's path):
+ * every field equals evaluateCandidate's, it only skips building what it would drop.
+ */
+export function evaluateCandidateSummary(
+  spec: RailSpec,
+  params: CandidateParams,
+  tech: Technology,
+  pins: Pins = {},
+): EvaluationSummary {
+  return summarizeCandidate(spec, sizeCandidate(spec, params, tech, pins, true), tech, undefined);
+}
+
+const cornerScalars = newScalars();
+/** average, rms, max, min of one waveform (WaveSet.stats). */
+const stats = new Float64Array(4);
+
+/**
+ * Every corner of a sized candidate, then its reasons, cautions and objectives. With `details` each
+ * corner's full record is pushed there as well (the candidate sheet); without, none is built.
+ */
+function summarizeCandidate(
+  spec: RailSpec,
+  sized: SizedCandidate,
+  tech: Technology,
+  details: CornerDetail[] | undefined,
+): EvaluationSummary {
+  const { topology, design: d, corners, reasons } = sized;
+  const params = d.params;
+  const parts = d.parts;
+  const n = parts.length;
+  const sc = scratchFor(n);
+  const { w, per, kinds, vPk, iPk } = sc;
+  vPk.fill(Number.NEGATIVE_INFINITY);
+  iPk.fill(Number.NEGATIVE_INFINITY);
+  let cin = -1;
+  for (let k = 0; k < n; k++) if (parts[k].name === 'Cin') cin = k;
+  const s = cornerScalars;
+  const vout = Math.abs(d.voutV);
+  const figures: CornerFigures[] = [];
+  let lossW = Number.NEGATIVE_INFINITY;
+  for (const c of corners) {
+    resetScalars(s);
+    const loss = operateWithLosses(topology, d, tech, c.vinV, c.ioutA, w, s, per, kinds);
+    if (details) details.push(cornerDetail(d, c, w, s, per, kinds, loss));
+    const poutW = vout * c.ioutA;
+    figures.push({
+      label: c.label,
+      vinV: c.vinV,
+      ioutA: c.ioutA,
+      fullLoad: c.fullLoad,
+      duty: s.duty,
+      duty2: s.duty2,
+      mode: s.mode,
+      converged: s.converged,
+      lossW: loss,
+      poutW,
+      pinW: poutW + loss,
+      efficiency: poutW / (poutW + loss),
+      cinRmsA: cin >= 0 ? w.rms(cin) : undefined,
+    });
+    if (!c.fullLoad) continue;
+    lossW = Math.max(lossW, loss);
+    for (let k = 0; k < n; k++) {
+      const code = parts[k].roleCode;
+      if (code !== ROLE_SWITCH && code !== ROLE_SYNC && code !== ROLE_DIODE) continue;
+      w.stats(k, stats);
+      vPk[k] = Math.max(vPk[k], w.vPeak(k));
+      iPk[k] = Math.max(iPk[k], Math.max(Math.abs(stats[2]), Math.abs(stats[3])));
+    }
+  }
+  reasons.push(...cornerReasons(d, spec.load.ccmRequired, figures));
   if (d.coupling > 0) {
-    const l1 = d.parts.find((p) => p.name === 'L1')!;
-    const l2 = d.parts.find((p) => p.name === 'L2')!;
+    const l1 = parts.find((p) => p.name === 'L1')!;
+    const l2 = parts.find((p) => p.name === 'L2')!;
     if (Math.abs(l1.value - l2.value) > 1e-6 * Math.max(l1.value, l2.value)) {
       reasons.push({
         code: 'coupled-inductances-unequal',
@@ -132,26 +277,25 @@ export function evaluateCandidate(
     }
   }
 
-  const full = results.filter((_, i) => corners[i].fullLoad);
-  const nom = results[corners.indexOf(nominalCorner(corners))];
+  const nom = nominalFigures(corners, figures);
   const pout = spec.output.voltageV * spec.load.maxA;
-  const semis = d.parts.filter((p) => p.role === 'switch' || p.role === 'sync' || p.role === 'diode');
+  // stress: Σ over switches and rectifiers of (worst full-load peak V × peak I) / Pout
   let stress = 0;
-  for (const p of semis) {
-    const vPk = Math.max(...full.map((r) => r.components[p.name].vPeakV));
-    const iPk = Math.max(...full.map((r) => r.components[p.name].iPeakA));
-    stress += (vPk * iPk) / pout;
+  for (let k = 0; k < n; k++) {
+    const code = parts[k].roleCode;
+    if (code === ROLE_SWITCH || code === ROLE_SYNC || code === ROLE_DIODE) stress += (vPk[k] * iPk[k]) / pout;
   }
   const partsByRole: Record<string, number> = {};
-  for (const p of d.parts) partsByRole[p.role] = (partsByRole[p.role] ?? 0) + p.units;
-  const parts = Object.values(partsByRole).reduce((a, b) => a + b, 0);
-  const volumeMm3 = d.parts.reduce((a, p) => a + p.volumeMm3, 0);
+  let count = 0;
+  let volumeMm3 = 0;
+  for (const p of parts) {
+    partsByRole[p.role] = (partsByRole[p.role] ?? 0) + p.units;
+    volumeMm3 += p.volumeMm3;
+  }
+  for (const role in partsByRole) count += partsByRole[role];
   const scal = newScalars();
   scal.duty = nom.duty;
-  const cautions = [
-    ...(topology.cautions?.(d, spec, scal) ?? []),
-    ...generalCautions(topology, d, corners, results),
-  ];
+  const cautions = [...(topology.cautions?.(d, spec, scal) ?? []), ...generalCautions(topology, d, figures)];
 
   return {
     topology: params.topology,
@@ -161,150 +305,9 @@ export function evaluateCandidate(
     feasible: reasons.length === 0,
     reasons,
     cautions,
-    objectives: { parts, lossW: Math.max(...full.map((r) => r.lossW)), stress, volumeMm3 },
+    objectives: { parts: count, lossW, stress, volumeMm3 },
     partsByRole,
     busV: d.busV > 0 ? d.busV : undefined,
     efficiencyNom: nom.efficiency,
-    corners: results,
-    parts: options.partList === false ? [] : summarizeParts(d, tech, results),
   };
-}
-
-const scratch = new Map<number, { w: WaveSet; per: Float64Array; kinds: Float64Array }>();
-
-function scratchFor(n: number) {
-  let s = scratch.get(n);
-  if (!s) {
-    s = { w: new WaveSet(n), per: new Float64Array(n), kinds: new Float64Array(LOSS_KINDS.length) };
-    scratch.set(n, s);
-  }
-  return s;
-}
-
-/**
- * The allocation-free inner loop: steady state and losses of a sized design at one operating point,
- * into caller-owned buffers. Returns the total loss (W). This is what the benchmark counts.
- */
-export function operateWithLosses(
-  topology: Topology,
-  d: Design,
-  tech: Technology,
-  vinV: number,
-  ioutA: number,
-  w: WaveSet,
-  s: OperatingScalars,
-  perPart: Float64Array,
-  byKind: Float64Array,
-): number {
-  w.data.fill(0);
-  topology.operate(d, vinV, ioutA, w, s);
-  return computeLosses(d, tech, vinV, w, perPart, byKind);
-}
-
-export function evaluateCorner(topology: Topology, d: Design, tech: Technology, c: Corner): CornerDetail {
-  const n = d.parts.length;
-  const { w, per, kinds } = scratchFor(n);
-  const s: OperatingScalars = newScalars();
-  const lossW = operateWithLosses(topology, d, tech, c.vinV, c.ioutA, w, s, per, kinds);
-  const T = 1 / d.params.fswHz;
-  const components: Record<string, ComponentStress> = {};
-  for (let k = 0; k < n; k++) {
-    const p = d.parts[k];
-    const mx = w.max(k);
-    const mn = w.min(k);
-    const isCap = p.role === 'capacitor' || p.role === 'damping-capacitor';
-    components[p.name] = {
-      value: p.value,
-      iAvgA: w.average(k),
-      iRmsA: w.rms(k),
-      iPeakA: Math.max(Math.abs(mx), Math.abs(mn)),
-      iPpA: mx - mn,
-      vPeakV: w.vPeak(k),
-      vPpV: isCap && p.value > 0 ? (w.chargeSwing(k) * T) / p.value + p.esrOhm * (mx - mn) : 0,
-      lossW: per[k],
-    };
-  }
-  const poutW = Math.abs(d.voutV) * c.ioutA;
-  const lossByKind: Record<string, number> = {};
-  LOSS_KINDS.forEach((kind, i) => {
-    lossByKind[kind] = kinds[i];
-  });
-  return {
-    label: c.label,
-    vinV: c.vinV,
-    ioutA: c.ioutA,
-    voutV: d.voutV,
-    duty: s.duty,
-    duty2: s.duty2,
-    mode: s.mode,
-    efficiency: poutW / (poutW + lossW),
-    lossW,
-    pinW: poutW + lossW,
-    poutW,
-    iinA: s.iinA,
-    lossByKind,
-    components,
-    ...(s.converged ? {} : { notConverged: true }),
-  };
-}
-
-function cornerReasons(
-  topology: Topology,
-  d: Design,
-  spec: RailSpec,
-  corners: Corner[],
-  results: CornerDetail[],
-): Reason[] {
-  const out: Reason[] = [];
-  const fsw = d.params.fswHz;
-  results.forEach((r, i) => {
-    const c = corners[i];
-    const s = r as CornerDetail & { notConverged?: boolean };
-    if (s.notConverged && c.fullLoad) {
-      out.push({
-        code: 'not-converged',
-        corner: c.label,
-        message: `${c.label}: no steady state with these drops (the stage cannot reach ${Math.abs(d.voutV)} V from ${c.vinV} V)`,
-      });
-      return;
-    }
-    if (!c.fullLoad) {
-      if (r.mode === 'dcm' && spec.load.ccmRequired) {
-        out.push({
-          code: 'dcm-light-load',
-          corner: c.label,
-          value: c.ioutA,
-          message: `${c.label}: discontinuous conduction at ${c.ioutA} A while the spec requires CCM`,
-        });
-      }
-      return;
-    }
-    const duties = dutiesOf(topology, r);
-    for (const duty of duties) {
-      if (duty > d.dutyMax + 1e-12) {
-        out.push({
-          code: 'duty-above-max',
-          corner: c.label,
-          value: duty,
-          limit: d.dutyMax,
-          message: `${c.label}: duty ${(duty * 100).toFixed(1)} % above the ${(d.dutyMax * 100).toFixed(1)} % allowed at ${(fsw / 1e3).toFixed(0)} kHz (min off-time, controller ceiling)`,
-        });
-      }
-      if (duty > 0 && duty < d.dutyMin - 1e-12) {
-        out.push({
-          code: 'duty-below-min-on-time',
-          corner: c.label,
-          value: duty,
-          limit: d.dutyMin,
-          message: `${c.label}: duty ${(duty * 100).toFixed(1)} % below the ${(d.dutyMin * 100).toFixed(1)} % that the minimum on-time allows at ${(fsw / 1e3).toFixed(0)} kHz`,
-        });
-      }
-    }
-  });
-  return out;
-}
-
-/** The commanded duties at a corner that must respect min on/off time. */
-function dutiesOf(_t: Topology, r: CornerDetail): number[] {
-  return r.duty2 > 0 ? [r.duty, r.duty2] : [r.duty];
 }

@@ -3,11 +3,23 @@
  * Writes per-component loss and per-kind totals into caller-owned arrays: no allocation.
  */
 
-import { igseLossDensity } from '../parts/inductor.ts';
+import { igseLossDensity, igseTriangleLossDensity } from '../parts/inductor.ts';
 import { type MosfetLoss, switchLoss, syncLoss } from '../parts/mosfet.ts';
 import type { Technology } from '../parts/technology.ts';
-import type { Design } from './design.ts';
-import { MAX_SEGMENTS, type WaveSet } from './wave.ts';
+import {
+  type Design,
+  ROLE_CAPACITOR,
+  ROLE_CONTROLLER,
+  ROLE_COUPLED_INDUCTOR,
+  ROLE_DAMPING_CAPACITOR,
+  ROLE_DAMPING_RESISTOR,
+  ROLE_DIODE,
+  ROLE_INDUCTOR,
+  ROLE_SENSE,
+  ROLE_SWITCH,
+  ROLE_SYNC,
+} from './design.ts';
+import { MAX_SEGMENTS, WAVE_STRIDE, type WaveSet } from './wave.ts';
 
 /**
  * Loss kinds. `conduction` is exactly what the averaged duty solution carries as drops (segment-mean
@@ -27,9 +39,22 @@ const mos: MosfetLoss = { conductionW: 0, switchingW: 0, gateW: 0 };
 const fr = new Float64Array(MAX_SEGMENTS);
 const db = new Float64Array(MAX_SEGMENTS);
 
+// Offsets inside one component's slot block, as documented in wave.ts: [n, f0..f3, a0..a3, b0..b3, …, w0..w3].
+const F = 1;
+const A = 1 + MAX_SEGMENTS;
+const B = 1 + 2 * MAX_SEGMENTS;
+const ION = 3 + 3 * MAX_SEGMENTS;
+const IOFF = 4 + 3 * MAX_SEGMENTS;
+const VSW = 5 + 3 * MAX_SEGMENTS;
+const W = 6 + 3 * MAX_SEGMENTS;
+
 /**
  * Fill `perPart[k]` (W) and `byKind[kind]` (W); returns the total loss (W).
  * Conduction loss counts I²R and Vf·I terms, which the duty solution already includes as drops.
+ *
+ * This is the hot loop of every study, so it reads the flat wave buffer directly and takes each part's
+ * average, mean square and mean square of segment means in one pass over its segments (the same sums,
+ * in the same order, as WaveSet.average, rms and meanSquareOfMeans: the numbers are identical).
  */
 export function computeLosses(
   d: Design,
@@ -39,15 +64,47 @@ export function computeLosses(
   perPart: Float64Array,
   byKind: Float64Array,
 ): number {
-  byKind.fill(0);
   const fsw = d.params.fswHz;
   const parts = d.parts;
+  const data = w.data;
+  let cond = 0;
+  let sw = 0;
+  let gate = 0;
+  let core = 0;
+  let cap = 0;
+  let other = 0;
   let total = 0;
   for (let k = 0; k < parts.length; k++) {
     const p = parts[k];
+    const code = p.roleCode;
     let loss = 0;
-    switch (p.role) {
-      case 'switch': {
+    if (code === ROLE_CONTROLLER) {
+      loss = d.ideal ? 0 : tech.controller.quiescentA * vinV;
+      other += loss;
+      perPart[k] = loss;
+      total += loss;
+      continue;
+    }
+    // one pass: average Σ f·m, mean square Σ f·ms, mean square of the segment means Σ f·m²
+    const o = k * WAVE_STRIDE;
+    const n = data[o];
+    let avg = 0;
+    let ms = 0;
+    let msm = 0;
+    for (let j = 0; j < n; j++) {
+      const f = data[o + F + j];
+      const a = data[o + A + j];
+      const b = data[o + B + j];
+      const bw = data[o + W + j];
+      const m = 0.5 * (a + b) + (2 / 3) * bw;
+      avg += f * m;
+      ms += f * ((a * a + a * b + b * b) / 3 + (2 * bw * (a + b)) / 3 + (8 * bw * bw) / 15);
+      msm += f * m * m;
+    }
+    const iR = Math.sqrt(ms);
+    const i2 = iR * iR;
+    switch (code) {
+      case ROLE_SWITCH: {
         switchLoss(
           p.ronOhm,
           p.qgC,
@@ -57,20 +114,22 @@ export function computeLosses(
           tech.mosfet.gateCurrentA,
           fsw,
           vinV,
-          w.rms(k),
-          w.iOn(k),
-          w.iOff(k),
-          w.vSw(k),
+          iR,
+          data[o + ION],
+          data[o + IOFF],
+          data[o + VSW],
           mos,
         );
-        splitResistive(w, k, p.ronOhm, mos.conductionW, byKind);
-        byKind[K_SW] += mos.switchingW;
-        byKind[K_GATE] += mos.gateW;
+        // resistive split: the segment-mean part is conduction, the ripple part is drawn extra
+        const mean = p.ronOhm * msm;
+        cond += mean;
+        other += mos.conductionW - mean;
+        sw += mos.switchingW;
+        gate += mos.gateW;
         loss = mos.conductionW + mos.switchingW + mos.gateW;
         break;
       }
-      case 'sync': {
-        const iR = w.rms(k);
+      case ROLE_SYNC: {
         syncLoss(
           p.ronOhm,
           p.qgC,
@@ -81,96 +140,113 @@ export function computeLosses(
           fsw,
           vinV,
           iR,
-          w.iOn(k),
-          w.iOff(k),
-          w.vSw(k),
+          data[o + ION],
+          data[o + IOFF],
+          data[o + VSW],
           mos,
         );
         // only the I²R part is inside the averaged duty model; dead-time diode loss is drawn extra
-        const i2r = iR * iR * p.ronOhm;
-        splitResistive(w, k, p.ronOhm, i2r, byKind);
-        byKind[K_OTHER] += mos.conductionW - i2r;
-        byKind[K_SW] += mos.switchingW;
-        byKind[K_GATE] += mos.gateW;
+        const i2r = i2 * p.ronOhm;
+        const mean = p.ronOhm * msm;
+        cond += mean;
+        other += i2r - mean;
+        other += mos.conductionW - i2r;
+        sw += mos.switchingW;
+        gate += mos.gateW;
         loss = mos.conductionW + mos.switchingW + mos.gateW;
         break;
       }
-      case 'diode': {
-        const iR = w.rms(k);
-        const cond = p.vfV * Math.abs(w.average(k)) + p.rdOhm * iR * iR;
-        const v = w.vSw(k);
-        const cap = 0.5 * p.cjF * v * v * fsw;
-        byKind[K_COND] += p.vfV * Math.abs(w.average(k));
-        splitResistive(w, k, p.rdOhm, p.rdOhm * iR * iR, byKind);
-        byKind[K_SW] += cap;
-        loss = cond + cap;
+      case ROLE_DIODE: {
+        const vfI = p.vfV * Math.abs(avg);
+        const rdI2 = p.rdOhm * iR * iR;
+        const v = data[o + VSW];
+        const cj = 0.5 * p.cjF * v * v * fsw;
+        cond += vfI;
+        const mean = p.rdOhm * msm;
+        cond += mean;
+        other += rdI2 - mean;
+        sw += cj;
+        loss = vfI + rdI2 + cj;
         break;
       }
-      case 'inductor':
-      case 'coupled-inductor': {
-        const iR = w.rms(k);
-        const cu = iR * iR * p.dcrOhm;
-        splitResistive(w, k, p.dcrOhm, cu, byKind);
-        const core = p.coreM3 > 0 ? p.coreM3 * coreLossDensity(d, tech, w, k) : 0;
-        byKind[K_CORE] += core;
-        loss = cu + core;
+      case ROLE_INDUCTOR:
+      case ROLE_COUPLED_INDUCTOR: {
+        const cu = i2 * p.dcrOhm;
+        const mean = p.dcrOhm * msm;
+        cond += mean;
+        other += cu - mean;
+        const c = p.coreM3 > 0 ? p.coreM3 * coreLossDensity(d, tech, data, k) : 0;
+        core += c;
+        loss = cu + c;
         break;
       }
-      case 'capacitor':
-      case 'damping-capacitor': {
-        const iR = w.rms(k);
-        loss = iR * iR * p.esrOhm;
-        byKind[K_CAP] += loss;
+      case ROLE_CAPACITOR:
+      case ROLE_DAMPING_CAPACITOR: {
+        loss = i2 * p.esrOhm;
+        cap += loss;
         break;
       }
-      case 'sense': {
-        const iR = w.rms(k);
-        loss = iR * iR * p.value;
-        splitResistive(w, k, p.value, loss, byKind);
+      case ROLE_SENSE: {
+        loss = i2 * p.value;
+        const mean = p.value * msm;
+        cond += mean;
+        other += loss - mean;
         break;
       }
-      case 'damping-resistor': {
-        const iR = w.rms(k);
-        loss = iR * iR * p.value;
-        byKind[K_CAP] += loss;
-        break;
-      }
-      case 'controller': {
-        loss = d.ideal ? 0 : tech.controller.quiescentA * vinV;
-        byKind[K_OTHER] += loss;
+      case ROLE_DAMPING_RESISTOR: {
+        loss = i2 * p.value;
+        cap += loss;
         break;
       }
     }
     perPart[k] = loss;
     total += loss;
   }
+  byKind[K_COND] = cond;
+  byKind[K_SW] = sw;
+  byKind[K_GATE] = gate;
+  byKind[K_CORE] = core;
+  byKind[K_CAP] = cap;
+  byKind[K_OTHER] = other;
   return total;
-}
-
-/** Book an I²R loss: the segment-mean part as conduction, the ripple part as drawn extra. */
-function splitResistive(w: WaveSet, k: number, r: number, total: number, byKind: Float64Array): void {
-  const mean = r * w.meanSquareOfMeans(k);
-  byKind[K_COND] += mean;
-  byKind[K_OTHER] += total - mean;
 }
 
 /**
  * Core loss density (W/m³) of the magnetic part whose first winding is component k. The flux follows
  * the winding's linkage λ = L·i (separate) or L1·i1 + M·i2 (coupled, with the other winding k+1).
  */
-function coreLossDensity(d: Design, tech: Technology, w: WaveSet, k: number): number {
+function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: number): number {
   const p = d.parts[k];
-  const n = w.segments(k);
+  const o = k * WAVE_STRIDE;
+  const o2 = o + WAVE_STRIDE;
+  const n = data[o];
   const coupled =
-    p.role === 'coupled-inductor' && k + 1 < d.parts.length && d.parts[k + 1].role === 'coupled-inductor';
+    p.roleCode === ROLE_COUPLED_INDUCTOR &&
+    k + 1 < d.parts.length &&
+    d.parts[k + 1].roleCode === ROLE_COUPLED_INDUCTOR;
   const m = coupled ? d.coupling * Math.sqrt(p.value * d.parts[k + 1].value) : 0;
+  if (n === 2) {
+    // the usual triangle: two segments whose flux changes cancel exactly (set2 writes a→b, b→a)
+    let dl0 = p.value * (data[o + B] - data[o + A]);
+    let dl1 = p.value * (data[o + B + 1] - data[o + A + 1]);
+    if (coupled) {
+      dl0 += m * (data[o2 + B] - data[o2 + A]);
+      dl1 += m * (data[o2 + B + 1] - data[o2 + A + 1]);
+    }
+    const db0 = dl0 * p.bPerWb;
+    const db1 = dl1 * p.bPerWb;
+    const f0 = data[o + F];
+    const f1 = data[o + F + 1];
+    if (db0 === -db1 && f0 > 0 && f1 > 0)
+      return igseTriangleLossDensity(tech.inductor.material, d.params.fswHz, Math.abs(db0), f0, f1);
+  }
   let b = 0;
   let bMax = 0;
   let bMin = 0;
   for (let j = 0; j < n; j++) {
-    fr[j] = w.fraction(k, j);
-    let dl = p.value * (w.end(k, j) - w.start(k, j));
-    if (coupled) dl += m * (w.end(k + 1, j) - w.start(k + 1, j));
+    fr[j] = data[o + F + j];
+    let dl = p.value * (data[o + B + j] - data[o + A + j]);
+    if (coupled) dl += m * (data[o2 + B + j] - data[o2 + A + j]);
     db[j] = dl * p.bPerWb;
     b += db[j];
     if (b > bMax) bMax = b;

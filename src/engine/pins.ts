@@ -78,6 +78,7 @@ export function applyPins(d: Design, pins: Record<string, number>): void {
       continue;
     }
     (part as unknown as Record<string, number>)[f.field] = value;
-    part.pinned.add(f.field);
+    // unpinned parts share the read-only NO_PINS set: give this one its own before adding
+    part.pinned = new Set(part.pinned).add(f.field);
   }
 }

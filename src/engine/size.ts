@@ -25,7 +25,7 @@ import {
 import type { Technology } from '../parts/technology.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import type { OperatingScalars, Topology } from '../topologies/topology.ts';
-import type { Design, PartDesign } from './design.ts';
+import { type Design, type PartDesign, ROLE_CAPACITOR, ROLE_DAMPING_CAPACITOR } from './design.ts';
 import type { Corner, Reason } from './types.ts';
 import { WaveSet } from './wave.ts';
 
@@ -94,6 +94,8 @@ export function newScalars(): OperatingScalars {
 }
 
 const envelopeScalars = newScalars();
+/** average, rms, max, min of one waveform (WaveSet.stats). */
+const stats = new Float64Array(4);
 
 function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet, e: Envelope): Envelope {
   const n = d.parts.length;
@@ -113,17 +115,18 @@ function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet, 
     topology.operate(d, c.vinV, c.ioutA, w, s);
     e.cVin[ci] = c.vinV;
     for (let k = 0; k < n; k++) {
-      const mx = w.max(k);
-      const mn = w.min(k);
-      const rms = w.rms(k);
-      e.iAvg[k] = Math.max(e.iAvg[k], Math.abs(w.average(k)));
+      w.stats(k, stats);
+      const mx = stats[2];
+      const mn = stats[3];
+      const rms = stats[1];
+      e.iAvg[k] = Math.max(e.iAvg[k], Math.abs(stats[0]));
       e.iRms[k] = Math.max(e.iRms[k], rms);
       e.iPeak[k] = Math.max(e.iPeak[k], Math.abs(mx), Math.abs(mn));
       e.iPp[k] = Math.max(e.iPp[k], mx - mn);
       e.vPeak[k] = Math.max(e.vPeak[k], w.vPeak(k));
       e.vDc[k] = Math.max(e.vDc[k], Math.abs(w.vDc(k)));
-      const role = d.parts[k].role;
-      if (role === 'capacitor' || role === 'damping-capacitor')
+      const role = d.parts[k].roleCode;
+      if (role === ROLE_CAPACITOR || role === ROLE_DAMPING_CAPACITOR)
         e.chargeC[k] = Math.max(e.chargeC[k], w.chargeSwing(k) * T);
       const at = ci * n + k;
       e.cRms[at] = rms;

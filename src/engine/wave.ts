@@ -176,6 +176,43 @@ export class WaveSet {
     return s;
   }
 
+  /**
+   * average, rms, max and min of component k in one pass, into out[0..3] (no allocation, no boxed
+   * returns): the same sums and comparisons as average(), rms(), max() and min(), so the same numbers.
+   */
+  stats(k: number, out: Float64Array): void {
+    const o = k * WAVE_STRIDE;
+    const d = this.data;
+    let avg = 0;
+    let ms = 0;
+    let mx = Number.NEGATIVE_INFINITY;
+    let mn = Number.POSITIVE_INFINITY;
+    for (let j = 0; j < d[o]; j++) {
+      const f = d[o + F + j];
+      const a = d[o + A + j];
+      const b = d[o + B + j];
+      const w = d[o + W + j];
+      avg += f * (0.5 * (a + b) + (2 / 3) * w);
+      ms += f * ((a * a + a * b + b * b) / 3 + (2 * w * (a + b)) / 3 + (8 * w * w) / 15);
+      if (f <= 0) continue;
+      mx = Math.max(mx, a, b);
+      mn = Math.min(mn, a, b);
+      if (w !== 0) {
+        // the vertex of a bowed segment (see extreme); negating a, b, w leaves x unchanged
+        const x = 0.5 * ((b - a) / (4 * w) + 1);
+        if (x > 0 && x < 1) {
+          const v = a + (b - a) * x + 4 * w * x * (1 - x);
+          mx = Math.max(mx, v);
+          mn = Math.min(mn, v);
+        }
+      }
+    }
+    out[0] = avg;
+    out[1] = Math.sqrt(ms);
+    out[2] = mx;
+    out[3] = mn;
+  }
+
   max(k: number): number {
     return this.extreme(k, 1);
   }

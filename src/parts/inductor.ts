@@ -12,7 +12,8 @@
  * iGSE (Venkatachalam, Sullivan, Abdallah & Tacca, "Accurate prediction of ferrite core loss with
  * nonsinusoidal waveforms using only Steinmetz parameters", IEEE COMPEL 2002):
  *   Pv = (1/T)∫ ki·|dB/dt|^α·(ΔB)^(β−α) dt,  ki = k / ((2π)^(α−1)·∫₀^{2π}|cos θ|^α·2^(β−α) dθ)
- * For piecewise-linear flux this is ki·ΔB^(β−α)·Σⱼ fⱼ·|ΔBⱼ/(fⱼ·T)|^α.
+ * For piecewise-linear flux this is ki·ΔB^(β−α)·Σⱼ fⱼ·|ΔBⱼ/(fⱼ·T)|^α. For the usual triangle (two
+ * segments, ΔB₀ = −ΔB₁ = ΔB) it reduces to ki·fsw^α·ΔB^β·(f₀^(1−α) + f₁^(1−α)).
  */
 import type { CoreMaterial, Technology } from './technology.ts';
 
@@ -87,7 +88,46 @@ export function igseLossDensity(
     const fj = f[j];
     const x = Math.abs(dB[j] * fswHz);
     if (fj <= 0 || x === 0) continue;
-    s += Math.exp(Math.log(fj) + a * (Math.log(x) - Math.log(fj)));
+    const lf = Math.log(fj);
+    s += Math.exp(lf + a * (Math.log(x) - lf));
   }
   return ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
+}
+
+// Per-call constants of the triangle form, kept from the previous call: a study evaluates one design
+// (one material, one fsw) at several corners, and the windings of one corner share their fractions.
+let triMaterial: CoreMaterial | undefined;
+let triFswHz = Number.NaN;
+let triKiFsw = 0;
+let triF0 = Number.NaN;
+let triF1 = Number.NaN;
+let triShape = 0;
+
+/**
+ * iGSE core loss density (W/m³) of a triangular flux: rise by dBT (T, > 0) over fraction f0 of the
+ * period, fall by the same over f1 (both > 0). Pv = ki·fsw^α·ΔB^β·(f₀^(1−α) + f₁^(1−α)), the
+ * two-segment case of igseLossDensity (same result to rounding), with ki·fsw^α and the fraction term
+ * reused from the previous call when they repeat.
+ */
+export function igseTriangleLossDensity(
+  m: CoreMaterial,
+  fswHz: number,
+  dBT: number,
+  f0: number,
+  f1: number,
+): number {
+  if (!(dBT > 0) || m.k === 0) return 0;
+  const a = m.alpha;
+  if (m !== triMaterial || fswHz !== triFswHz) {
+    triKiFsw = igseKi(m) * Math.exp(a * Math.log(fswHz));
+    triMaterial = m;
+    triFswHz = fswHz;
+    triF0 = Number.NaN;
+  }
+  if (f0 !== triF0 || f1 !== triF1) {
+    triShape = Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
+    triF0 = f0;
+    triF1 = f1;
+  }
+  return triKiFsw * Math.exp(m.beta * Math.log(dBT)) * triShape;
 }

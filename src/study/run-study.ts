@@ -2,7 +2,7 @@
  * The study, serially: validate options, enumerate, evaluate every candidate at all its corners with the
  * engine, assemble. Pure and synchronous; the worker-thread path for large sweeps is parallel.ts.
  */
-import { evaluateCandidate } from '../engine/evaluate.ts';
+import { evaluateCandidateSummary } from '../engine/evaluate.ts';
 import type { CandidateParams } from '../engine/types.ts';
 import type { Technology } from '../parts/technology.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
@@ -16,18 +16,16 @@ export interface StudyHooks {
   onProgress?(done: number, total: number): void;
 }
 
-/** Evaluate one candidate and keep what the study needs (the corners and part list are dropped). */
+/**
+ * Evaluate one candidate and keep what the study needs: evaluateCandidate without its corner records
+ * and part list, which the summary path never builds.
+ */
 export function evaluateForStudy(
   spec: RailSpec,
   params: CandidateParams,
   tech: Technology,
 ): CandidateEvaluation {
-  const {
-    corners: _corners,
-    parts: _parts,
-    ...rest
-  } = evaluateCandidate(spec, params, tech, {}, { partList: false });
-  return rest;
+  return evaluateCandidateSummary(spec, params, tech);
 }
 
 /** Throws StudyInputError (with every problem) on bad options. */

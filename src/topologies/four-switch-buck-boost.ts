@@ -96,26 +96,59 @@ function setSegments(
   segB[2] = b2;
 }
 
-/** Branch current over the intervals: sign·iL where the mask conducts, plus a constant offset (A). */
-function writeBranch(w: WaveSet, k: number, mask: number, sign: number, offset: number): void {
-  // compact away zero-length intervals (buck and boost regions use two of the three)
-  let n = 0;
+/**
+ * The non-empty intervals, compacted once per operating point (buck and boost regions use two of the
+ * three): their kinds, fractions and iL at both ends, in order. Filled by compactSegments.
+ */
+let nSeg = 0;
+const useKind = new Int8Array(3);
+
+function compactSegments(): void {
+  nSeg = 0;
   for (let j = 0; j < 3; j++) {
     if (!(segF[j] > 0)) continue;
-    const s = (mask >> segKind[j]) & 1 ? sign : 0;
-    scratchF[n] = segF[j];
-    scratchA[n] = offset + s * segA[j];
-    scratchB[n] = offset + s * segB[j];
-    n++;
+    useKind[nSeg] = segKind[j];
+    scratchF[nSeg] = segF[j];
+    scratchA[nSeg] = segA[j];
+    scratchB[nSeg] = segB[j];
+    nSeg++;
   }
-  if (n === 1) w.set2(k, 1, scratchA[0], scratchB[0], scratchB[0], scratchB[0]);
-  else if (n === 2) w.set2(k, scratchF[0], scratchA[0], scratchB[0], scratchA[1], scratchB[1]);
-  else {
-    f3.d0 = scratchF[0];
-    f3.d1 = scratchF[1];
-    f3.d2 = scratchF[2];
-    w.set3(k, f3, scratchA[0], scratchB[0], scratchA[1], scratchB[1], scratchA[2], scratchB[2]);
+}
+
+/** Branch current over the intervals: sign·iL where the mask conducts, plus a constant offset (A). */
+function writeBranch(w: WaveSet, k: number, mask: number, sign: number, offset: number): void {
+  const s0 = (mask >> useKind[0]) & 1 ? sign : 0;
+  if (nSeg === 1) {
+    const b = offset + s0 * scratchB[0];
+    w.set2(k, 1, offset + s0 * scratchA[0], b, b, b);
+    return;
   }
+  const s1 = (mask >> useKind[1]) & 1 ? sign : 0;
+  if (nSeg === 2) {
+    w.set2(
+      k,
+      scratchF[0],
+      offset + s0 * scratchA[0],
+      offset + s0 * scratchB[0],
+      offset + s1 * scratchA[1],
+      offset + s1 * scratchB[1],
+    );
+    return;
+  }
+  const s2 = (mask >> useKind[2]) & 1 ? sign : 0;
+  f3.d0 = scratchF[0];
+  f3.d1 = scratchF[1];
+  f3.d2 = scratchF[2];
+  w.set3(
+    k,
+    f3,
+    offset + s0 * scratchA[0],
+    offset + s0 * scratchB[0],
+    offset + s1 * scratchA[1],
+    offset + s1 * scratchB[1],
+    offset + s2 * scratchA[2],
+    offset + s2 * scratchB[2],
+  );
 }
 /** Average of iL over the intervals where the mask conducts (A). */
 function branchAverage(mask: number): number {
@@ -215,6 +248,7 @@ export function operateFourSwitch(
 
   const iin = branchAverage(ON_Q1);
   s.iinA = iin;
+  compactSegments();
   writeBranch(w, Q1, ON_Q1, 1, 0);
   writeBranch(w, R2, ON_R2, 1, 0);
   writeBranch(w, Q3, ON_Q3, 1, 0);

@@ -45,15 +45,63 @@ export function sumWaves(
   if (kb >= 0) n = addEdges(w, kb, n);
   grid[n++] = 1;
   sortGrid(n);
+  // Each stored wave is read at both ends of every grid interval, on the segment that contains the
+  // interval's midpoint. The midpoints increase, so the segment search resumes where it stopped (it
+  // finds the same segment, with the same running start time, as a search from t = 0 would).
+  const d = w.data;
+  const oa = ka * WAVE_STRIDE;
+  const ob = kb >= 0 ? kb * WAVE_STRIDE : 0;
+  const na = d[oa];
+  const nb = kb >= 0 ? d[ob] : 0;
+  let ja = 0;
+  let sa = 0;
+  let jb = 0;
+  let sb = 0;
   let segs = 0;
   for (let i = 1; i < n; i++) {
     const t0 = grid[i - 1];
     const t1 = grid[i];
     if (t1 - t0 <= EDGE_EPS) continue;
     const mid = 0.5 * (t0 + t1);
+    while (ja < na) {
+      const f = d[oa + F + ja];
+      if (f > 0 && (mid < sa + f || ja === na - 1)) break;
+      sa += f;
+      ja++;
+    }
+    let a0 = 0;
+    let a1 = 0;
+    if (ja < na) {
+      const f = d[oa + F + ja];
+      const s = d[oa + A + ja];
+      const e = d[oa + B + ja];
+      a0 = s + (e - s) * Math.min(1, Math.max(0, (t0 - sa) / f));
+      a1 = s + (e - s) * Math.min(1, Math.max(0, (t1 - sa) / f));
+    }
     segF[segs] = t1 - t0;
-    segA[segs] = ga * valueAt(w, ka, mid, t0) + (kb >= 0 ? gb * valueAt(w, kb, mid, t0) : 0);
-    segB[segs] = ga * valueAt(w, ka, mid, t1) + (kb >= 0 ? gb * valueAt(w, kb, mid, t1) : 0);
+    if (kb >= 0) {
+      while (jb < nb) {
+        const f = d[ob + F + jb];
+        if (f > 0 && (mid < sb + f || jb === nb - 1)) break;
+        sb += f;
+        jb++;
+      }
+      let b0 = 0;
+      let b1 = 0;
+      if (jb < nb) {
+        const f = d[ob + F + jb];
+        const s = d[ob + A + jb];
+        const e = d[ob + B + jb];
+        b0 = s + (e - s) * Math.min(1, Math.max(0, (t0 - sb) / f));
+        b1 = s + (e - s) * Math.min(1, Math.max(0, (t1 - sb) / f));
+      }
+      segA[segs] = ga * a0 + gb * b0;
+      segB[segs] = ga * a1 + gb * b1;
+    } else {
+      // `+ 0` as the two-wave form adds: a −0 becomes +0 exactly as before
+      segA[segs] = ga * a0 + 0;
+      segB[segs] = ga * a1 + 0;
+    }
     segs++;
   }
   while (segs > MAX_SEGMENTS) segs = mergeShortest(segs);
@@ -61,7 +109,6 @@ export function sumWaves(
   let mean = 0;
   if (acOnly) for (let j = 0; j < segs; j++) mean += segF[j] * 0.5 * (segA[j] + segB[j]);
   const o = dst * WAVE_STRIDE;
-  const d = w.data;
   d[o] = segs;
   for (let j = 0; j < MAX_SEGMENTS; j++) {
     const used = j < segs;
@@ -93,21 +140,6 @@ function addEdges(w: WaveSet, k: number, n0: number): number {
     if (t > EDGE_EPS && t < 1 - EDGE_EPS) grid[n++] = t;
   }
   return n;
-}
-
-/** Value at time t of the segment of waveform k that contains time `inside` (t lies on that segment). */
-function valueAt(w: WaveSet, k: number, inside: number, t: number): number {
-  const segs = w.segments(k);
-  let start = 0;
-  for (let j = 0; j < segs; j++) {
-    const f = w.fraction(k, j);
-    if (f > 0 && (inside < start + f || j === segs - 1)) {
-      const x = Math.min(1, Math.max(0, (t - start) / f));
-      return w.start(k, j) + (w.end(k, j) - w.start(k, j)) * x;
-    }
-    start += f;
-  }
-  return 0;
 }
 
 /** Merge the shortest segment into its shorter neighbour, keeping the pair's charge; returns the new count. */
