@@ -179,8 +179,7 @@ export function sizeDesign(
   for (let pass = 0; pass < 2; pass++) {
     const e = envelope(topology, d, corners, w, buffers);
     reasons.length = 0;
-    for (let k = 0; k < d.parts.length; k++)
-      sizePart(topology, d, spec, tech, corners, comps[k].sizing, k, e, w, reasons);
+    for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
   }
   return reasons;
 }
@@ -192,15 +191,12 @@ function partByName(d: Design, name: string): PartDesign {
 }
 
 function sizePart(
-  topology: Topology,
   d: Design,
   spec: RailSpec,
   tech: Technology,
-  corners: Corner[],
   rule: ReturnType<Topology['components']>[number]['sizing'],
   k: number,
   e: Envelope,
-  w: WaveSet,
   reasons: Reason[],
 ): void {
   const p = d.parts[k];
