@@ -12,9 +12,10 @@
  *  - an objective with zero range within the rank (every point equal on it, e.g. the same part count)
  *    adds nothing to any point, boundary Infinity included: it tells nothing about spread;
  *  - a rank of one or two points is all boundary: every point gets Infinity.
- * Cost: one radix sort per objective, O(n · m).
+ * Cost: one radix sort per objective, O(n · m), shared with the rank computation in sortNonDominated.
  */
-import { argsortColumns, column } from './pareto-radix.ts';
+import { type ObjectiveOrders, objectiveOrders } from './pareto-order.ts';
+import { sortObjective } from './pareto-radix.ts';
 
 /**
  * Crowding distance of the n points (row-major n × m in `values`) within the groups given by `rank`
@@ -26,39 +27,55 @@ export function crowdingFlat(
   m: number,
   rank: ArrayLike<number>,
 ): Float64Array {
+  if (n === 0) return new Float64Array(0);
+  // groups numbered in label order: the dense rank of the label
+  const labels = sortObjective(Float64Array.from(rank), n, 1, 0);
+  return crowdingByGroups(values, n, m, labels.dense, labels.distinct, objectiveOrders(values, n, m));
+}
+
+/**
+ * Crowding distance within groups numbered first..first+groups-1 (`groupOf[i]` for point i; first = 1
+ * takes 1-based ranks as they are), given each objective's
+ * sorted order (shared with the rank computation). Each objective's order is split by a stable counting
+ * sort into its groups (objective order, ties by index, survive the stable scatter), then walked once.
+ */
+export function crowdingByGroups(
+  values: Float64Array,
+  n: number,
+  m: number,
+  groupOf: Int32Array,
+  groups: number,
+  orders: ObjectiveOrders,
+  first = 0,
+): Float64Array {
   const crowd = new Float64Array(n);
-  if (n === 0) return crowd;
-  // rank groups: label order by one radix sort, then each objective sorted once and split by a stable
-  // counting sort into its rank group (objective order, ties by index, survive the stable scatter)
-  const labels = Float64Array.from(rank);
-  const byLabel = argsortColumns([labels], n);
-  const groupOf = new Int32Array(n);
-  const groupStart: number[] = [0];
-  for (let i = 1; i < n; i++) {
-    if (labels[byLabel[i]] !== labels[byLabel[i - 1]]) groupStart.push(i);
-    groupOf[byLabel[i]] = groupStart.length - 1;
-  }
-  groupStart.push(n);
-  const fill = new Int32Array(groupStart.length);
+  const groupStart = new Int32Array(groups + 1);
+  for (let i = 0; i < n; i++) groupStart[groupOf[i] - first + 1]++;
+  for (let g = 0; g < groups; g++) groupStart[g + 1] += groupStart[g];
+  const fill = new Int32Array(groups);
   const order = new Int32Array(n);
   for (let k = 0; k < m; k++) {
-    const f = column(values, n, m, k);
-    const byValue = argsortColumns([f], n);
-    for (let g = 0; g < fill.length; g++) fill[g] = groupStart[g];
+    const byValue = orders.orders[k];
+    fill.set(groupStart.subarray(0, groups));
     for (let i = 0; i < n; i++) {
       const idx = byValue[i];
-      order[fill[groupOf[idx]]++] = idx;
+      order[fill[groupOf[idx] - first]++] = idx;
     }
-    for (let g = 0; g + 1 < groupStart.length; g++)
-      addObjective(crowd, f, order, groupStart[g], groupStart[g + 1]);
+    for (let g = 0; g < groups; g++)
+      addObjective(crowd, values, m, k, order, groupStart[g], groupStart[g + 1]);
   }
   return crowd;
 }
 
-/** Adds objective k's share for the rank occupying sorted positions [start, end). */
+/**
+ * Adds objective k's share for the group occupying sorted positions [start, end). The walk keeps the
+ * previous, current and next values in locals, so each point's row is read once.
+ */
 function addObjective(
   crowd: Float64Array,
-  f: Float64Array,
+  values: Float64Array,
+  m: number,
+  k: number,
   order: Int32Array,
   start: number,
   end: number,
@@ -67,11 +84,16 @@ function addObjective(
     for (let i = start; i < end; i++) crowd[order[i]] = Number.POSITIVE_INFINITY;
     return;
   }
-  const range = f[order[end - 1]] - f[order[start]];
+  const range = values[order[end - 1] * m + k] - values[order[start] * m + k];
   if (range === 0) return;
   crowd[order[start]] = Number.POSITIVE_INFINITY;
   crowd[order[end - 1]] = Number.POSITIVE_INFINITY;
+  let previous = values[order[start] * m + k];
+  let current = values[order[start + 1] * m + k];
   for (let i = start + 1; i < end - 1; i++) {
-    crowd[order[i]] += (f[order[i + 1]] - f[order[i - 1]]) / range;
+    const next = values[order[i + 1] * m + k];
+    crowd[order[i]] += (next - previous) / range;
+    previous = current;
+    current = next;
   }
 }

@@ -2,8 +2,10 @@
  * Rank kernels for one and two objectives.
  *
  * Kernel contract (shared with pareto-staircase.ts and pareto-divide.ts): `cols[k][j]` is objective k
- * of the j-th distinct point, the points sorted lexicographically ascending and pairwise distinct
- * (exact duplicates were merged beforehand). Under that order a point can only be dominated by points
+ * of the j-th distinct point as its dense rank (0 for the smallest value; integers compare like the values
+ * and take half the memory), the points sorted lexicographically ascending and pairwise distinct
+ * (exact duplicates were merged beforehand). Kernels never read cols[0]: the order settles objective 0.
+ * Under that order a point can only be dominated by points
  * before it, and an earlier point q dominates a later p exactly when q ≤ p on objectives 1..m-1
  * (q ≤ p on objective 0 comes with the order, and q ≠ p with distinctness). Kernels return the
  * 0-based rank of every distinct point: 1 + the largest rank among its dominators, 0 if none.
@@ -26,10 +28,10 @@ export function rankSorted1(u: number): Int32Array {
  * of maxima, as in Jensen, "Reducing the run-time complexity of multiobjective EAs: the NSGA-II and
  * other algorithms", IEEE Trans. Evolutionary Computation, 2003 (its two-objective sweep).
  */
-export function rankSorted2(cols: Float64Array[], u: number): Int32Array {
+export function rankSorted2(cols: Int32Array[], u: number): Int32Array {
   const f2 = cols[1];
   const rank = new Int32Array(u);
-  const tail = new Float64Array(u);
+  const tail = new Int32Array(u);
   let fronts = 0;
   for (let j = 0; j < u; j++) {
     const y = f2[j];

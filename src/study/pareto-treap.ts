@@ -9,16 +9,16 @@
 
 /** Typed-array treap pool; node j is distinct point j. */
 interface Pool {
-  key: Float64Array; // objective 2 (search key)
-  val: Float64Array; // objective 3
+  key: Int32Array; // objective 2 (search key)
+  val: Int32Array; // objective 3
   left: Int32Array;
   right: Int32Array;
   prio: Int32Array;
 }
 
 const EMPTY: Pool = {
-  key: new Float64Array(0),
-  val: new Float64Array(0),
+  key: new Int32Array(0),
+  val: new Int32Array(0),
   left: new Int32Array(0),
   right: new Int32Array(0),
   prio: new Int32Array(0),
@@ -28,7 +28,7 @@ let pool: Pool = EMPTY;
 let splitLeft = -1;
 let splitRight = -1;
 
-export function rankSorted3Treap(cols: Float64Array[], u: number): Int32Array {
+export function rankSorted3Treap(cols: Int32Array[], u: number): Int32Array {
   const f2 = cols[1];
   const f3 = cols[2];
   pool = {

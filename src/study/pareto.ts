@@ -8,9 +8,11 @@
  * NSGA-II (Deb, Pratap, Agarwal & Meyarivan, IEEE Trans. Evolutionary Computation, 2002), within each rank;
  * tie rules in pareto-crowding.ts.
  *
- * Method and cost (n points, m objectives, R fronts). All start with a stable radix sort of the points in
- * lexicographic order, O(n m), then merge exact duplicates; after that only earlier points can dominate
- * later ones, and each kernel sweeps once:
+ * Method and cost (n points, m objectives, R fronts). One stable radix sort per objective, O(n m), gives
+ * each objective's order and dense ranks (pareto-order.ts); from those the lexicographic order is a pass
+ * over small integers (none at all for continuous data), exact duplicates merge by comparing ranks, and
+ * the same orders serve the crowding distance. After the lexicographic sort only earlier points can
+ * dominate later ones, and each kernel sweeps once over the dense ranks:
  *  - m = 1: sorted order is the rank order, O(n).
  *  - m = 2: staircase sweep with binary search over the fronts' tails, O(n log R) (pareto-sweep2.ts; the
  *    two-objective sweep of Jensen, IEEE TEVC 2003).
@@ -21,13 +23,16 @@
  *    Buzdalov & Shalyto, "A provably asymptotically fast version of the generalized Jensen algorithm for
  *    non-dominated sorting", PPSN 2014: O(n log^(m-1) n) recursion, with a sort per step on top
  *    (pareto-divide.ts).
- * Crowding: one radix sort per objective, O(n m). Recursion depth is O(log n) everywhere.
+ * Crowding: the objective orders split by rank with a counting sort, O(n m). Recursion depth is O(log n)
+ * everywhere. Measured (bench/pareto.bench.ts): 10⁶ uniform points × 3 objectives in 0.65–0.9 s on the
+ * 2-core machine depending on its load; the 3-objective kernel is about 0.35 s of it, the m sorts 0.2 s.
  * The O(n² m) reference used by the tests is `sortNonDominatedBrute` (pareto-brute.ts).
  */
-import { crowdingFlat } from './pareto-crowding.ts';
+import { crowdingByGroups, crowdingFlat } from './pareto-crowding.ts';
 import { epsilonGroupsFlat } from './pareto-epsilon.ts';
 import { flattenPoints, ParetoInputError, type PointsInput } from './pareto-input.ts';
-import { frontsOf, rankPoints } from './pareto-rank.ts';
+import { objectiveOrders } from './pareto-order.ts';
+import { frontsOf, rankWithOrders } from './pareto-rank.ts';
 
 export { sortNonDominatedBrute } from './pareto-brute.ts';
 export { ParetoInputError, type PointsInput };
@@ -47,9 +52,13 @@ export interface SortResult {
  * objective, RangeError on ragged or mis-sized input.
  */
 export function sortNonDominated(points: PointsInput, m?: number): SortResult {
-  const flat = flattenPoints(points, m);
-  const rank = rankPoints(flat.values, flat.n, flat.m);
-  const crowding = crowdingFlat(flat.values, flat.n, flat.m, rank);
+  const { values, n, m: width } = flattenPoints(points, m);
+  // one sort per objective serves the lexicographic sweep order, the duplicate merge and the crowding
+  const orders = objectiveOrders(values, n, width);
+  const rank = rankWithOrders(n, width, orders);
+  let fronts = 0;
+  for (let i = 0; i < n; i++) if (rank[i] > fronts) fronts = rank[i];
+  const crowding = crowdingByGroups(values, n, width, rank, fronts, orders, 1);
   return { rank, crowding, fronts: frontsOf(rank) };
 }
 

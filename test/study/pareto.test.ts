@@ -8,7 +8,14 @@ import {
   sortNonDominated,
   sortNonDominatedBrute,
 } from '../../src/study/pareto.ts';
-import { comparatorArgsort, radixArgsort, SMALL_N } from '../../src/study/pareto-radix.ts';
+import { lexicographicOrder, objectiveOrders } from '../../src/study/pareto-order.ts';
+import {
+  comparatorArgsort,
+  radixArgsort,
+  SMALL_N,
+  sortByIntKey,
+  sortObjective,
+} from '../../src/study/pareto-radix.ts';
 import { type RankMethod, rankPoints } from '../../src/study/pareto-rank.ts';
 import { rankSorted3, rankSorted3Flat } from '../../src/study/pareto-staircase.ts';
 
@@ -26,6 +33,17 @@ function expectSameAsBrute(points: number[][]): void {
     if (b === Number.POSITIVE_INFINITY) expect(a).toBe(b);
     else expect(Math.abs(a - b)).toBeLessThanOrEqual(CROWDING_RTOL * Math.max(1, Math.abs(b)));
   }
+}
+
+/** Deterministic uniform [0, 1) generator (mulberry32, common practice) for large generated sets. */
+function mulberry32(seed: number): () => number {
+  let s = seed >>> 0;
+  return () => {
+    s = (s + 0x6d2b79f5) | 0;
+    let t = Math.imul(s ^ (s >>> 15), 1 | s);
+    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
 }
 
 function rankWith(points: number[][], method: RankMethod): number[] {
@@ -81,7 +99,7 @@ describe('sortNonDominated agrees with the O(n² m) reference', () => {
     );
   });
 
-  it(`matches on sets larger than ${SMALL_N} points, where the radix sort and deeper recursion take over`, () => {
+  it('matches on sets of up to 700 points, where the divide-and-conquer recursion goes deeper', () => {
     fc.assert(
       fc.property(
         fc.integer({ min: 2, max: 4 }).chain((m) => smallIntPoints(m, 12, 700)),
@@ -93,6 +111,26 @@ describe('sortNonDominated agrees with the O(n² m) reference', () => {
         },
       ),
       { numRuns: 40 },
+    );
+  });
+
+  it(`matches on sets larger than ${SMALL_N} points, where the radix sorts take over`, () => {
+    // levels 0 = continuous values (every objective distinct: no tie pass), 3 and 60 = heavy ties and
+    // duplicates (counting-sort passes, duplicate merge); the reference is O(n²), so a few runs only
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 2 ** 31 - 1 }),
+        fc.integer({ min: 2, max: 4 }),
+        fc.constantFrom(0, 3, 60),
+        (seed, m, levels) => {
+          const rnd = mulberry32(seed);
+          const pts = Array.from({ length: SMALL_N + 300 }, () =>
+            Array.from({ length: m }, () => (levels === 0 ? rnd() - 0.5 : Math.floor(rnd() * levels))),
+          );
+          expectSameAsBrute(pts);
+        },
+      ),
+      { numRuns: 5 },
     );
   });
 });
@@ -117,6 +155,82 @@ describe('radix argsort', () => {
         },
       ),
       { numRuns: 300 },
+    );
+  });
+});
+
+describe('per-objective orders (shared by ranking and crowding)', () => {
+  /** n × m values from a generator; `level` 0 = continuous, else integers below it (ties). */
+  function flatPoints(seed: number, n: number, levels: number[]): Float64Array {
+    const rnd = mulberry32(seed);
+    const m = levels.length;
+    const out = new Float64Array(n * m);
+    for (let i = 0; i < n; i++) {
+      for (let k = 0; k < m; k++)
+        out[i * m + k] = levels[k] === 0 ? rnd() - 0.5 : Math.floor(rnd() * levels[k]);
+    }
+    return out;
+  }
+
+  it('sorts each objective like the comparator sort, with dense ranks, radix path included', () => {
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 2 ** 31 - 1 }),
+        fc.constantFrom(100, SMALL_N + 50),
+        fc.constantFrom(0, 2, 50),
+        (seed, n, levels) => {
+          const values = flatPoints(seed, n, [levels, 0]);
+          for (let i = 0; i < n; i += 7) if (values[2 * i] === 0) values[2 * i] = -0; // -0 ties +0
+          const col = Float64Array.from({ length: n }, (_, i) => values[2 * i]);
+          const sorted = sortObjective(values, n, 2, 0);
+          const expected = comparatorArgsort([col], n);
+          expect(Array.from(sorted.order)).toEqual(Array.from(expected));
+          // dense rank = number of distinct values below, by direct count on the comparator's order
+          let d = 0;
+          for (let i = 0; i < n; i++) {
+            if (i > 0 && col[expected[i]] !== col[expected[i - 1]]) d++;
+            expect(sorted.dense[expected[i]]).toBe(d);
+          }
+          expect(sorted.distinct).toBe(d + 1);
+        },
+      ),
+      { numRuns: 30 },
+    );
+  });
+
+  it('gives the lexicographic order by each of its three routes (all distinct, few ties, many ties)', () => {
+    const n = SMALL_N + 100;
+    const cases: number[][] = [
+      [3, 0, 2], // objective 1 all distinct: LSD starts there
+      [0, 3, 2], // objective 0 continuous: its order as is, the rare exact ties sorted by run
+      [5, 4, 3], // many ties everywhere: counting-sort passes
+    ];
+    for (const levels of cases) {
+      for (const seed of [1, 2, 3]) {
+        const values = flatPoints(seed, n, levels);
+        // plant ties in objective 0 for the few-ties route (1 in 100 positions, under 1/64)
+        if (levels[0] === 0) for (let i = 1; i < n; i += 100) values[i * 3] = values[(i - 1) * 3];
+        const cols = [0, 1, 2].map((k) => Float64Array.from({ length: n }, (_, i) => values[i * 3 + k]));
+        const lex = lexicographicOrder(objectiveOrders(values, n, 3), n);
+        expect(Array.from(lex)).toEqual(Array.from(comparatorArgsort(cols, n)));
+      }
+    }
+  });
+
+  it('sorts by an integer key stably with more than 65 536 buckets (radix passes)', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.integer({ min: 0, max: 69_999 }), { minLength: 1, maxLength: 3000 }),
+        (keys) => {
+          const n = keys.length;
+          const key = Int32Array.from(keys);
+          const start = Int32Array.from({ length: n }, (_, i) => n - 1 - i); // a non-identity input order
+          const got = sortByIntKey(start, key, 70_000, n);
+          const expected = Array.from(start).sort((a, b) => key[a] - key[b] || b - a); // stable: input order
+          expect(Array.from(got)).toEqual(expected);
+        },
+      ),
+      { numRuns: 100 },
     );
   });
 });
@@ -179,8 +293,9 @@ describe('ranks', () => {
 
   it('switches from flat staircases to the treap when an adversarial order shifts too much', () => {
     // an antichain inserted at the front of its staircase each time: every insertion shifts all entries
+    // (kernel columns are dense ranks: objective 2 descends, objectives 1 and 3 ascend along the sweep)
     const u = 400;
-    const cols = [0, 1, 2].map((k) => Float64Array.from({ length: u }, (_, j) => (k === 1 ? -j : j)));
+    const cols = [0, 1, 2].map((k) => Int32Array.from({ length: u }, (_, j) => (k === 1 ? u - 1 - j : j)));
     expect(rankSorted3Flat(cols, u, 1000)).toBeUndefined();
     expect(Array.from(rankSorted3(cols, u, 1000))).toEqual(new Array(u).fill(0));
   });
