@@ -6,20 +6,10 @@
 import { igseLossDensity, igseTriangleLossDensity } from '../parts/inductor.ts';
 import { type MosfetLoss, switchLoss, syncLoss } from '../parts/mosfet.ts';
 import type { Technology } from '../parts/technology.ts';
-import {
-  type Design,
-  ROLE_CAPACITOR,
-  ROLE_CONTROLLER,
-  ROLE_COUPLED_INDUCTOR,
-  ROLE_DAMPING_CAPACITOR,
-  ROLE_DAMPING_RESISTOR,
-  ROLE_DIODE,
-  ROLE_INDUCTOR,
-  ROLE_SENSE,
-  ROLE_SWITCH,
-  ROLE_SYNC,
-} from './design.ts';
-import { MAX_SEGMENTS, WAVE_STRIDE, type WaveSet } from './wave.ts';
+import type { Design } from './design.ts';
+import * as roles from './design.ts';
+import type { WaveSet } from './wave.ts';
+import * as wave from './wave.ts';
 
 /**
  * Loss kinds. `conduction` is exactly what the averaged duty solution carries as drops (segment-mean
@@ -34,6 +24,22 @@ export const K_GATE = 2;
 export const K_CORE = 3;
 export const K_CAP = 4;
 export const K_OTHER = 5;
+
+// Imported constants copied into module constants, read once at load: when the modules are compiled
+// to CommonJS (tsx does) every read of an imported binding is a property getter, and the loop below
+// would pay one per part and per case label.
+const ROLE_SWITCH = roles.ROLE_SWITCH;
+const ROLE_SYNC = roles.ROLE_SYNC;
+const ROLE_DIODE = roles.ROLE_DIODE;
+const ROLE_INDUCTOR = roles.ROLE_INDUCTOR;
+const ROLE_COUPLED_INDUCTOR = roles.ROLE_COUPLED_INDUCTOR;
+const ROLE_CAPACITOR = roles.ROLE_CAPACITOR;
+const ROLE_DAMPING_CAPACITOR = roles.ROLE_DAMPING_CAPACITOR;
+const ROLE_SENSE = roles.ROLE_SENSE;
+const ROLE_DAMPING_RESISTOR = roles.ROLE_DAMPING_RESISTOR;
+const ROLE_CONTROLLER = roles.ROLE_CONTROLLER;
+const MAX_SEGMENTS = wave.MAX_SEGMENTS;
+const WAVE_STRIDE = wave.WAVE_STRIDE;
 
 const mos: MosfetLoss = { conductionW: 0, switchingW: 0, gateW: 0 };
 const fr = new Float64Array(MAX_SEGMENTS);

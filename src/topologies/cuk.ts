@@ -22,21 +22,12 @@ import type { Caution, RectifierKind } from '../engine/types.ts';
 import type { WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { couplingResonanceCaution, couplingRhpZeroCaution } from './coupling-cautions.ts';
-import {
-  CIN,
-  COUT,
-  CS,
-  L1,
-  L2,
-  newCouplingPoint,
-  Q1,
-  RECT,
-  RS,
-  solveCouplingNetwork,
-  U1,
-  writeCommonWaves,
-} from './coupling-network.ts';
+import * as net from './coupling-network.ts';
+import { newCouplingPoint, solveCouplingNetwork, writeCommonWaves } from './coupling-network.ts';
 import type { ComponentSpec, OperatingScalars, Topology } from './topology.ts';
+
+// Slot numbers read once (an imported binding compiled to CommonJS is a getter on every read).
+const { CIN, COUT, CS, L1, L2, Q1, RECT, RS, U1 } = net;
 
 function components(rect: RectifierKind): ComponentSpec[] {
   return [

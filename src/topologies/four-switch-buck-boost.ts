@@ -1,6 +1,7 @@
 /**
  * Four-switch (non-inverting) buck-boost with one inductor: a buck leg (Q1 + Q2/D1) feeding a boost leg
- * (Q3 + Q4/D2) through L1. Regions, duties and the loss-inclusive averaged model: four-switch-solve.ts.
+ * (Q3 + Q4/D2) through L1. Regions, duties and the loss-inclusive averaged model: four-switch-solve.ts;
+ * components and slots: four-switch-parts.ts.
  *
  * Waveforms: the period is a list of up to three intervals, each named by the switches that conduct
  * (A: Q1+Q3, B: Q1+Q4/D2, C: Q2/D1+Q4/D2, idle: nothing). Every branch current is the inductor current
@@ -24,25 +25,15 @@ import type { Caution, RectifierKind } from '../engine/types.ts';
 import type { WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatSi } from '../units/format.ts';
-import {
-  CIN,
-  COUT,
-  fourSwitchComponents,
-  L1,
-  newDrops,
-  newPoint,
-  Q1,
-  Q3,
-  R2,
-  R4,
-  RS,
-  readDrops,
-  solveFourSwitch,
-  transitionBandV,
-  U1,
-} from './four-switch-solve.ts';
+import * as parts from './four-switch-parts.ts';
+import { fourSwitchComponents, newDrops, readDrops } from './four-switch-parts.ts';
+import { newPoint, solveFourSwitch, transitionBandV } from './four-switch-solve.ts';
 import { rhpZeroHz } from './rhp-zero.ts';
 import type { OperatingScalars, Topology } from './topology.ts';
+
+// Slot numbers read once: compiled to CommonJS (as tsx runs the engine) every read of an imported
+// binding is a property getter, and operate() reads these dozens of times per corner.
+const { CIN, COUT, L1, Q1, Q3, R2, R4, RS, U1 } = parts;
 
 /** Interval kinds, as bit positions of the conduction masks below. */
 const A = 0;

@@ -1,5 +1,6 @@
 /**
- * Four-switch (non-inverting) buck-boost: components, operating regions and the loss-inclusive duties.
+ * Four-switch (non-inverting) buck-boost: operating regions and the loss-inclusive duties (components,
+ * slots and path drops: four-switch-parts.ts).
  *
  * Circuit: Q1 from Vin to node A, Q2 (or diode D1, anode at ground) from ground to A, L1 in series with
  * Rsense from A to B (iL flows A → B), Q3 from B to ground, Q4 (or diode D2, anode at B) from B to Vout.
@@ -21,7 +22,10 @@
  * differ from the average IL only in the three-interval case. Taking the drops at the segment means makes
  * the model conserve energy exactly (Vin·Iin = Pout + Σ R·Σ f·m² + Vf·I): the inductor's energy
  * ∮ L·i di closes over a period. Duties, IL and the means are iterated to a fixed point; the coupling is
- * weak (R·T/L ≪ 1, R·I ≪ V), so a few iterations reach 1e-13.
+ * weak (R·T/L ≪ 1, R·I ≪ V), so a few iterations reach 1e-13. A region test only needs to know on which
+ * side of a duty limit the fixed point lies: once the iteration contracts (each change under half the
+ * one before, so the rest of the path is shorter than the last change) and the duty is further past
+ * the limit than EARLY_MARGIN changes, the test stops there (the full iteration reaches the same verdict).
  * Ideal limits: buck D1 = Vout/Vin with D3 = 0; boost D3 = 1 − Vin/Vout with D1 = 1, IL = Iout/(1 − D3).
  *
  * Regions, in this order (common practice; each controller family has its own hand-over):
@@ -39,117 +43,9 @@
  * Vin = Vout (+ drops), where D1 = 1 and D3 = 0: Q1 and Q4 stay on and the stage passes Vin through.
  */
 import type { Design } from '../engine/design.ts';
-import type { RectifierKind } from '../engine/types.ts';
-import type { ComponentSpec } from './topology.ts';
+import { type FourSwitchDrops, L1, newDrops, readDrops } from './four-switch-parts.ts';
 
 export type FourSwitchRegion = 'buck' | 'boost' | 'buck-boost';
-
-export function fourSwitchComponents(rect: RectifierKind): ComponentSpec[] {
-  return [
-    {
-      name: 'Q1',
-      role: 'switch',
-      duty: 'buck leg, high side (Vin to node A); on continuously in the boost region',
-      sizing: { kind: 'switch' },
-    },
-    rect === 'diode'
-      ? {
-          name: 'D1',
-          role: 'diode',
-          duty: 'buck leg freewheeling diode (ground to node A)',
-          sizing: { kind: 'diode' },
-        }
-      : { name: 'Q2', role: 'sync', duty: 'buck leg, low side (synchronous)', sizing: { kind: 'sync' } },
-    {
-      name: 'Q3',
-      role: 'switch',
-      duty: 'boost leg, low side (node B to ground); off in the buck region',
-      sizing: { kind: 'switch' },
-    },
-    rect === 'diode'
-      ? {
-          name: 'D2',
-          role: 'diode',
-          duty: 'boost leg output diode (node B to Vout)',
-          sizing: { kind: 'diode' },
-        }
-      : {
-          name: 'Q4',
-          role: 'sync',
-          duty: 'boost leg, high side (synchronous); on continuously in the buck region',
-          sizing: { kind: 'sync' },
-        },
-    {
-      name: 'L1',
-      role: 'inductor',
-      duty: 'the one inductor, between the two legs',
-      sizing: { kind: 'inductor' },
-    },
-    {
-      name: 'Rsense',
-      role: 'sense',
-      duty: 'inductor current-sense resistor (carries iL all the time)',
-      sizing: { kind: 'sense', of: 'L1' },
-    },
-    {
-      name: 'Cin',
-      role: 'capacitor',
-      duty: 'input capacitor',
-      sizing: { kind: 'capacitor', ripple: 'input' },
-    },
-    {
-      name: 'Cout',
-      role: 'capacitor',
-      duty: 'output capacitor',
-      sizing: { kind: 'capacitor', ripple: 'output' },
-    },
-    {
-      name: 'U1',
-      role: 'controller',
-      duty: 'four-switch buck-boost controller (peak/valley current mode)',
-      sizing: { kind: 'controller' },
-    },
-  ];
-}
-
-/** Fixed component slots (same order as fourSwitchComponents for either rectifier). */
-export const Q1 = 0;
-export const R2 = 1; // Q2 or D1
-export const Q3 = 2;
-export const R4 = 3; // Q4 or D2
-export const L1 = 4;
-export const RS = 5;
-export const CIN = 6;
-export const COUT = 7;
-export const U1 = 8;
-
-/** Series resistances (Ω) and diode knees (V) of the conduction paths, from the design's parasitics. */
-export interface FourSwitchDrops {
-  rq1Ohm: number;
-  r2Ohm: number;
-  rq3Ohm: number;
-  r4Ohm: number;
-  /** DCR + Rsense: in the inductor path in every interval. */
-  rlOhm: number;
-  vf1V: number;
-  vf2V: number;
-}
-
-export function newDrops(): FourSwitchDrops {
-  return { rq1Ohm: 0, r2Ohm: 0, rq3Ohm: 0, r4Ohm: 0, rlOhm: 0, vf1V: 0, vf2V: 0 };
-}
-
-export function readDrops(d: Design, out: FourSwitchDrops): void {
-  const p = d.parts;
-  const sync = d.params.rect === 'sync';
-  out.rq1Ohm = p[Q1].ronOhm;
-  out.r2Ohm = sync ? p[R2].ronOhm : p[R2].rdOhm;
-  out.vf1V = sync ? 0 : p[R2].vfV;
-  out.rq3Ohm = p[Q3].ronOhm;
-  out.r4Ohm = sync ? p[R4].ronOhm : p[R4].rdOhm;
-  out.vf2V = sync ? 0 : p[R4].vfV;
-  out.rlOhm = p[L1].dcrOhm + p[RS].value;
-}
 
 /** CCM steady state: duties, inductor currents at the interval edges (A) and interval voltages (V). */
 export interface FourSwitchPoint {
@@ -190,13 +86,26 @@ const TOL = 1e-14;
 const FRACTION_SLACK = 1e-12;
 /** Last-iteration change accepted when the iteration cycles at rounding level instead of settling. */
 const ROUNDING_TOL = 1e-10;
+/** A region test stops once the free duty is this many last changes past its limit (see the header). */
+const EARLY_MARGIN = 100;
+
+/** Outcomes of solveWithLegHeld. */
+const FAILED = 0;
+const SOLVED = 1;
+/** Stopped early: the fixed point lies clearly past the caller's duty limit (a region test's "no"). */
+const BEYOND = 2;
+
+/** Whether the last solveWithLegHeld wrote `out` at least once (it returns before that on a bad start). */
+let wroteOut = false;
 
 /**
  * Solve the three-interval averaged model with one leg's duty held: `fix = 'd3'` holds the boost leg
  * (solve D1), `fix = 'd1'` holds the buck leg (solve D3). kPerH = T (s) per henry of L1, i.e. T/L (s/H).
- * Returns false when the duty leaves [0, 1] or the iteration runs away (drops too large).
+ * `limit` (NaN: none) is the region test's bound on the free duty — D1 ≤ limit, or D3 ≥ limit — and
+ * lets the iteration stop early with BEYOND when the fixed point clearly misses it. Returns FAILED
+ * when the duty leaves [0, 1] or the iteration runs away (drops too large).
  */
-export function solveWithLegHeld(
+function solveWithLegHeld(
   vin: number,
   vout: number,
   iout: number,
@@ -204,8 +113,9 @@ export function solveWithLegHeld(
   r: FourSwitchDrops,
   fix: 'd1' | 'd3',
   held: number,
+  limit: number,
   out: FourSwitchPoint,
-): boolean {
+): number {
   const rA = r.rq1Ohm + r.rlOhm + r.rq3Ohm;
   const rB = r.rq1Ohm + r.rlOhm + r.r4Ohm;
   const rC = r.r2Ohm + r.rlOhm + r.r4Ohm;
@@ -220,36 +130,45 @@ export function solveWithLegHeld(
   let dC = 0;
   const iScale = Math.max(Math.abs(iout), 1e-12);
   let change = Number.POSITIVE_INFINITY;
-  out.converged = false;
-  for (let it = 0; it < MAX_ITER; it++) {
-    const vA = eA - rA * (il + dA);
-    const vB = eB - rB * (il + dB);
-    const vC = eC - rC * (il + dC);
+  // the last completed iterate's edge currents and interval voltages, written to `out` on the way out
+  let i0 = 0;
+  let dIA = 0;
+  let dIB = 0;
+  let vA = 0;
+  let vB = 0;
+  let vC = 0;
+  let done = 0;
+  let status = FAILED;
+  for (; done < MAX_ITER; done++) {
+    const nA = eA - rA * (il + dA);
+    const nB = eB - rB * (il + dB);
+    const nC = eC - rC * (il + dC);
     let n1 = d1;
     let n3 = d3;
     if (fix === 'd3') {
-      const den = vB - vC;
-      if (!(den > 0)) return false;
-      n1 = (d3 * (vB - vA) - vC) / den;
+      const den = nB - nC;
+      if (!(den > 0)) break;
+      n1 = (d3 * (nB - nA) - nC) / den;
     } else {
-      const den = vA - vB;
-      if (!(den > 0)) return false;
-      n3 = -(d1 * vB + (1 - d1) * vC) / den;
+      const den = nA - nB;
+      if (!(den > 0)) break;
+      n3 = -(d1 * nB + (1 - d1) * nC) / den;
     }
     const fA = n3;
     const fB = n1 - n3;
     const fC = 1 - n1;
-    if (fA < -FRACTION_SLACK || fB < -FRACTION_SLACK || fC < -FRACTION_SLACK || !(fB + fC > 0)) return false;
+    if (fA < -FRACTION_SLACK || fB < -FRACTION_SLACK || fC < -FRACTION_SLACK || !(fB + fC > 0)) break;
     // ripple shape from iL = 0 at the start of A; offset i0 from the output charge balance
-    const dIA = vA * fA * tOverL;
-    const dIB = vB * fB * tOverL;
-    const muA = 0.5 * dIA;
-    const muB = dIA + 0.5 * dIB;
-    const muC = 0.5 * (dIA + dIB);
+    const nIA = nA * fA * tOverL;
+    const nIB = nB * fB * tOverL;
+    const muA = 0.5 * nIA;
+    const muB = nIA + 0.5 * nIB;
+    const muC = 0.5 * (nIA + nIB);
     const mu = fA * muA + fB * muB + fC * muC;
-    const i0 = (iout - fB * muB - fC * muC) / (fB + fC);
-    const ilNext = i0 + mu;
-    if (!Number.isFinite(ilNext) || n3 >= 1) return false;
+    const n0 = (iout - fB * muB - fC * muC) / (fB + fC);
+    const ilNext = n0 + mu;
+    if (!Number.isFinite(ilNext) || n3 >= 1) break;
+    const last = change;
     change = Math.abs(n1 - d1) + Math.abs(n3 - d3) + Math.abs(ilNext - il) / iScale;
     d1 = n1;
     d3 = n3;
@@ -257,6 +176,32 @@ export function solveWithLegHeld(
     dA = muA - mu;
     dB = muB - mu;
     dC = muC - mu;
+    i0 = n0;
+    dIA = nIA;
+    dIB = nIB;
+    vA = nA;
+    vB = nB;
+    vC = nC;
+    if (change < TOL) {
+      status = SOLVED;
+      done++;
+      break;
+    }
+    if (change < 0.5 * last) {
+      // contracting: the fixed point is within one last change of here (see the header)
+      const margin = EARLY_MARGIN * change;
+      if (fix === 'd3' ? d1 > limit + margin : d3 < limit - margin && d3 > margin && fB + fC > margin) {
+        status = BEYOND;
+        done++;
+        break;
+      }
+    }
+  }
+  // a 2-cycle at rounding level still counts as converged
+  if (done === MAX_ITER && change < ROUNDING_TOL) status = SOLVED;
+  out.converged = status === SOLVED;
+  wroteOut = done > 0;
+  if (wroteOut) {
     out.d1 = d1;
     out.d3 = d3;
     out.ilA = il;
@@ -266,14 +211,8 @@ export function solveWithLegHeld(
     out.vAV = vA;
     out.vBV = vB;
     out.vCV = vC;
-    if (change < TOL) {
-      out.converged = true;
-      return true;
-    }
   }
-  // a 2-cycle at rounding level still counts as converged
-  out.converged = change < ROUNDING_TOL;
-  return out.converged;
+  return status;
 }
 
 /**
@@ -288,25 +227,49 @@ export function solveFourSwitch(
   tOverL: number,
   out: FourSwitchPoint,
 ): void {
+  // A test that stopped early leaves `out` short of its fixed point; that only shows when the solve
+  // that follows fails before its first write. Then the region is found again without early stops.
+  if (!solveRegion(d, r, vin, iout, tOverL, out, true)) solveRegion(d, r, vin, iout, tOverL, out, false);
+}
+
+/** solveFourSwitch's region order; false when an early stop may have left its mark on `out`. */
+function solveRegion(
+  d: Design,
+  r: FourSwitchDrops,
+  vin: number,
+  iout: number,
+  tOverL: number,
+  out: FourSwitchPoint,
+  early: boolean,
+): boolean {
   const vout = Math.abs(d.voutV);
-  if (solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', 0, out) && out.d1 < 1 && out.d1 <= d.dutyMax) {
+  const maxD1 = early ? d.dutyMax : Number.NaN;
+  const minD3 = early ? d.dutyMin : Number.NaN;
+  const buck = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', 0, maxD1, out);
+  if (buck === SOLVED && out.d1 < 1 && out.d1 <= d.dutyMax) {
     out.region = 'buck';
-    return;
+    return true;
   }
-  const boostOk = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', 1, out);
-  if (boostOk && out.d3 > 0 && out.d3 >= d.dutyMin) {
+  let stopped = buck === BEYOND;
+  const boost = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', 1, minD3, out);
+  if (boost === SOLVED && out.d3 > 0 && out.d3 >= d.dutyMin) {
     out.region = 'boost';
-    return;
+    return true;
   }
-  if (!boostOk && vin < vout) {
+  if (boost === FAILED && vin < vout) {
     // the boost solution ran away: the drops eat the input; report it as such (not converged)
     out.region = 'boost';
     out.converged = false;
-    return;
+    return !stopped || wroteOut;
   }
+  stopped ||= boost === BEYOND;
   out.region = 'buck-boost';
-  if (solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', d.dutyMin, out) && out.d1 <= d.dutyMax) return;
-  solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', d.dutyMax, out);
+  const held = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', d.dutyMin, maxD1, out);
+  if (held === SOLVED && out.d1 <= d.dutyMax) return true;
+  const heldWrote = wroteOut;
+  stopped ||= held === BEYOND;
+  solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', d.dutyMax, Number.NaN, out);
+  return !stopped || wroteOut || (heldWrote && held !== BEYOND);
 }
 
 /**

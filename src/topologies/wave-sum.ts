@@ -11,7 +11,14 @@
  * the segment charge (so the average, and the charge balance, stay exact; RMS and ripple become a
  * close estimate at a corner where they are small).
  */
-import { MAX_SEGMENTS, WAVE_STRIDE, type WaveSet } from '../engine/wave.ts';
+
+import type { WaveSet } from '../engine/wave.ts';
+import * as wave from '../engine/wave.ts';
+
+// Read once into module constants: compiled to CommonJS (as tsx runs the engine) every read of an
+// imported binding is a property getter, which the loops below would otherwise pay on every call.
+const MAX_SEGMENTS = wave.MAX_SEGMENTS;
+const WAVE_STRIDE = wave.WAVE_STRIDE;
 
 // Offsets inside one component's slot block, as documented in wave.ts: [n, f0..f3, a0..a3, b0..b3, ...].
 const F = 1;
