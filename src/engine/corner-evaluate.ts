@@ -4,7 +4,7 @@
  */
 import type { Technology } from '../parts/technology.ts';
 import type { OperatingScalars, Topology } from '../topologies/topology.ts';
-import { type Design, ROLE_CAPACITOR, ROLE_DAMPING_CAPACITOR } from './design.ts';
+import { type Design, ROLE_CAPACITOR, ROLE_DAMPING_CAPACITOR, ROLE_SENSE } from './design.ts';
 import { computeLosses, LOSS_KINDS } from './losses.ts';
 import { newScalars } from './size.ts';
 import type { ComponentStress, Corner, CornerResult } from './types.ts';
@@ -107,7 +107,8 @@ export function cornerDetail(
       iRmsA: stats[1],
       iPeakA: Math.max(Math.abs(mx), Math.abs(mn)),
       iPpA: mx - mn,
-      vPeakV: w.vPeak(k),
+      // a sense resistor's peak voltage is Ohm's law on its peak current (what the controller sees)
+      vPeakV: p.roleCode === ROLE_SENSE ? p.value * Math.max(Math.abs(mx), Math.abs(mn)) : w.vPeak(k),
       vPpV: isCap && p.value > 0 ? (w.chargeSwing(k) * T) / p.value + p.esrOhm * (mx - mn) : 0,
       lossW: per[k],
     };
