@@ -9,8 +9,14 @@
  */
 import type { Objectives, Reason } from '../engine/types.ts';
 import { type FrontScale, normalisedDistance } from './normalise.ts';
-import { describeDelta, formatObjective, OBJECTIVE_WORDS, objectiveDelta } from './objectives.ts';
-import type { FrontTrade, ObjectiveKey, Verdict } from './types.ts';
+import {
+  describeDelta,
+  formatObjective,
+  OBJECTIVE_WORDS,
+  objectiveDelta,
+  PRACTICAL_TIE,
+} from './objectives.ts';
+import type { FrontTrade, ObjectiveDelta, ObjectiveKey, Verdict } from './types.ts';
 
 /** How many nearest front neighbours a front member is compared with. */
 export const FRONT_NEIGHBOURS = 2;
@@ -78,9 +84,16 @@ export function frontVerdict(i: number, input: VerdictInput): Verdict {
     parts.push(`equal on every chosen objective to ${ties.map((j) => ids[j]).join(', ')}`);
   }
   for (const t of trades) {
-    const gives = t.givesUp.map(describeDelta).join(', ');
-    const gains = t.gains.map(describeDelta).join(', ');
-    parts.push(`against ${t.neighbour}: ${gives}${gains ? `, in exchange for ${gains}` : ''}`);
+    // differences under PRACTICAL_TIE are neither given up nor gained: they are named last, as ties
+    const real = (d: ObjectiveDelta) => d.objective === 'parts' || Math.abs(d.relative) >= PRACTICAL_TIE;
+    const gives = t.givesUp.filter(real).map(describeDelta).join(', ');
+    const gains = t.gains.filter(real).map(describeDelta).join(', ');
+    const even = [...t.givesUp, ...t.gains]
+      .filter((d) => !real(d))
+      .map(describeDelta)
+      .join(', ');
+    const trade = gives && gains ? `${gives}, in exchange for ${gains}` : gives || gains;
+    parts.push(`against ${t.neighbour}: ${[trade, even].filter(Boolean).join('; ')}`);
   }
   return { kind: 'front', bestAt, trades, text: `on the front: ${parts.join('; ')}` };
 }

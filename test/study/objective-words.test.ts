@@ -1,6 +1,8 @@
 /** Differences between candidates in words: exact numbers, and practical ties named as such. */
 import { describe, expect, it } from 'vitest';
+import { loadSpecFile, loadTechnology } from '../../src/spec/load.ts';
 import { describeDelta, objectiveDelta, PRACTICAL_TIE } from '../../src/study/objectives.ts';
+import { runStudy } from '../../src/study/run-study.ts';
 
 const o = (parts: number, lossW: number, stress: number, volumeMm3: number) => ({
   parts,
@@ -28,5 +30,18 @@ describe('objective differences in words', () => {
     expect(describeDelta(objectiveDelta('parts', o(201, 1, 5, 500), o(200, 1, 5, 500)))).toBe(
       '1 more part (201 vs 200)',
     );
+  });
+});
+
+describe('front verdicts', () => {
+  it('never trades a practical tie: "in exchange for about the same …" does not occur', () => {
+    const loaded = loadSpecFile('data/specs/industrial-24v-negative-12v.yaml');
+    if (!loaded.ok) throw new Error('demo spec invalid');
+    const study = runStudy(loaded.spec, loadTechnology('default'));
+    const front = study.candidates.filter((c) => c.verdict.kind === 'front');
+    expect(front.length).toBeGreaterThan(1);
+    const texts = front.map((c) => c.verdict.text);
+    expect(texts.some((t) => t.includes('about the same'))).toBe(true); // the case arises on this rail
+    for (const t of texts) expect(t).not.toMatch(/in exchange for about the same/);
   });
 });
