@@ -5,10 +5,10 @@
  * 1. Inductors from the ripple ratio r: with unit inductance the ripple is ΔI₁ (A·H), so
  *    L = max over full-load corners of ΔI₁ / (r · max |I_L,avg|) — r is relative to the inductor's
  *    largest full-load average current (common practice).
- * 2. Two passes: evaluate every full-load corner with the present parts, then choose every part from
- *    the worst corner (voltage class from peak voltage, MOSFET die for least loss, capacitor banks from
- *    the ripple limits and RMS current, magnetics by area product). The second pass sees the drops of
- *    the first.
+ * 2. Two passes: evaluate every full-load corner with the present parts, re-aim the inductors at the
+ *    ripple ratio with the drops now known, then choose every part from the worst corner (voltage
+ *    class from peak voltage, MOSFET die for least loss, capacitor banks from the ripple limits and
+ *    RMS current, magnetics by area product). The second pass sees the drops of the first.
  * Pinned values and parasitics are never overwritten.
  */
 import { dcBiasFactor, pickCeramicClass, sizeCeramicBank } from '../parts/capacitor.ts';
@@ -178,6 +178,20 @@ export function sizeDesign(
 
   for (let pass = 0; pass < 2; pass++) {
     const e = envelope(topology, d, corners, w, buffers);
+    // Re-aim the inductors at the operating points the drops actually give (pass 0 saw lossless
+    // parts, which can even put a mode-changing stage in another region): ripple scales as 1/L, so
+    // L·ΔI/(r·I) hits the ripple ratio exactly at the present voltages.
+    for (let k = 0; k < d.parts.length; k++) {
+      const p = d.parts[k];
+      if (comps[k].sizing.kind === 'inductor' && settable(p, 'value') && e.iPp[k] > 0) {
+        p.value = (p.value * e.iPp[k]) / (d.params.ripple * Math.max(e.iAvg[k], 1e-9));
+      }
+    }
+    for (let k = 0; k < d.parts.length; k++) {
+      const rule = comps[k].sizing;
+      if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
+        d.parts[k].value = partByName(d, rule.of).value;
+    }
     reasons.length = 0;
     for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
   }
