@@ -13,7 +13,7 @@
  * R2 = winding resistance of the output-side inductor carrying IL2 = Iout (Ćuk, Zeta: L2), and Rb = a
  * winding that carries Isw in both intervals (inverting buck-boost: its single inductor; 0 otherwise).
  * Multiplying out, D·Vin·Iin = Pout + Σ I²R + Vf·Iout with Iin = D·Isw: the averaged model conserves energy
- * exactly, which the shared contract test checks. Solved by fixed-point iteration (the currents depend on D).
+ * exactly, which the shared contract test checks. Solved in closed form (a quadratic in 1/(1−D), below).
  *
  * DCM with a diode rectifier (Erickson & Maksimović ch. 5: buck-boost M = D/√K, K = 2L/(R·Tsw); the Ćuk and
  * SEPIC DCM analysis replaces L by Le = L1‖L2, since both inductors carry the same voltage in each interval):
@@ -42,9 +42,11 @@ export interface DcmDuty {
   converged: boolean;
 }
 
-/** Iteration cap and tolerance of the fixed points (a handful of steps suffice at realistic drops). */
+/** Iteration cap and tolerance of the DCM fixed point (a handful of steps suffice at realistic drops). */
 const MAX_ITERATIONS = 60;
 const DUTY_TOLERANCE = 1e-13;
+/** Largest duty a CCM solution reports; beyond it the stage is taken as unable to regulate. */
+const DUTY_CEILING = 0.999;
 
 /**
  * CCM duty of the family with drops (see the header): voV = |Vout| (V), vfV = diode knee (V, 0 for sync),
@@ -62,24 +64,28 @@ export function solveCcmDuty(
   ioutA: number,
   out: CcmDuty,
 ): void {
-  let d = voV / (vinV + voV);
-  out.converged = false;
-  for (let it = 0; it < MAX_ITERATIONS; it++) {
-    const isw = ioutA / (1 - d);
-    const il1 = isw - ioutA;
-    const den = vinV - il1 * r1Ohm - isw * (rqOhm + rBothOhm);
-    if (den <= 0) break;
-    const x = (voV + vfV + isw * (rrOhm + rBothOhm) + ioutA * r2Ohm) / den;
-    const next = x / (1 + x);
-    if (Math.abs(next - d) < DUTY_TOLERANCE) {
-      d = next;
-      out.converged = true;
-      break;
-    }
-    d = next;
-    if (d >= 0.999) break;
+  // With u = 1/(1−D): Isw = Iout·u, IL1 = Iout·(u−1), D/(1−D) = u−1, and the balance in the header
+  // becomes a quadratic B·u² − q·u + c = 0 with
+  //   A = Vin + Iout·R1,  B = Iout·(R1 + Rq + Rb),  C = Vout + Vf + Iout·R2,  E = Iout·(rr + Rb),
+  //   q = A + B − E,  c = A + C.
+  // The smaller root is the physical one (the larger lies past the peak of the loss-limited conversion
+  // ratio, which no fixed-point iteration from the ideal duty reaches); written cancellation-free as 2c/(q + √(q²−4Bc)),
+  // which is also right for B = 0 (no drops: u = c/q, D = Vout/(Vin + Vout)).
+  const a = vinV + ioutA * r1Ohm;
+  const b = ioutA * (r1Ohm + rqOhm + rBothOhm);
+  const c = a + voV + vfV + ioutA * r2Ohm;
+  const q = a + b - ioutA * (rrOhm + rBothOhm);
+  const disc = q * q - 4 * b * c;
+  if (!(q > 0) || !(disc >= 0)) {
+    // past the peak conversion ratio: no duty gives this output
+    out.duty = DUTY_CEILING;
+    out.converged = false;
+    return;
   }
-  out.duty = d;
+  const u = (2 * c) / (q + Math.sqrt(disc));
+  const d = 1 - 1 / u;
+  out.duty = d < DUTY_CEILING ? d : DUTY_CEILING;
+  out.converged = d < DUTY_CEILING;
 }
 
 /**
