@@ -84,7 +84,7 @@ export function solveCcmDuty(
   }
   const u = (2 * c) / (q + Math.sqrt(disc));
   const d = 1 - 1 / u;
-  out.duty = d < DUTY_CEILING ? d : DUTY_CEILING;
+  out.duty = Math.min(d, DUTY_CEILING);
   out.converged = d < DUTY_CEILING;
 }
 
