@@ -70,7 +70,7 @@ export function operateWithLosses(
   perPart: Float64Array,
   byKind: Float64Array,
 ): number {
-  w.data.fill(0);
+  w.reset();
   topology.operate(d, vinV, ioutA, w, s);
   return computeLosses(d, tech, vinV, w, perPart, byKind);
 }

@@ -45,14 +45,11 @@ const mos: MosfetLoss = { conductionW: 0, switchingW: 0, gateW: 0 };
 const fr = new Float64Array(MAX_SEGMENTS);
 const db = new Float64Array(MAX_SEGMENTS);
 
-// Offsets inside one component's slot block, as documented in wave.ts: [n, f0..f3, a0..a3, b0..b3, …, w0..w3].
+// Offsets inside one component's slot block, as documented in wave.ts: [n, f0..f3, a0..a3, b0..b3, w0..w3].
 const F = 1;
 const A = 1 + MAX_SEGMENTS;
 const B = 1 + 2 * MAX_SEGMENTS;
-const ION = 3 + 3 * MAX_SEGMENTS;
-const IOFF = 4 + 3 * MAX_SEGMENTS;
-const VSW = 5 + 3 * MAX_SEGMENTS;
-const W = 6 + 3 * MAX_SEGMENTS;
+const W = 1 + 3 * MAX_SEGMENTS;
 
 /**
  * Fill `perPart[k]` (W) and `byKind[kind]` (W); returns the total loss (W).
@@ -73,6 +70,9 @@ export function computeLosses(
   const fsw = d.params.fswHz;
   const parts = d.parts;
   const data = w.data;
+  const iOn = w.iOnA;
+  const iOff = w.iOffA;
+  const vSw = w.vSwV;
   let cond = 0;
   let sw = 0;
   let gate = 0;
@@ -121,9 +121,9 @@ export function computeLosses(
           fsw,
           vinV,
           iR,
-          data[o + ION],
-          data[o + IOFF],
-          data[o + VSW],
+          iOn[k],
+          iOff[k],
+          vSw[k],
           mos,
         );
         // resistive split: the segment-mean part is conduction, the ripple part is drawn extra
@@ -146,9 +146,9 @@ export function computeLosses(
           fsw,
           vinV,
           iR,
-          data[o + ION],
-          data[o + IOFF],
-          data[o + VSW],
+          iOn[k],
+          iOff[k],
+          vSw[k],
           mos,
         );
         // only the I²R part is inside the averaged duty model; dead-time diode loss is drawn extra
@@ -165,7 +165,7 @@ export function computeLosses(
       case ROLE_DIODE: {
         const vfI = p.vfV * Math.abs(avg);
         const rdI2 = p.rdOhm * iR * iR;
-        const v = data[o + VSW];
+        const v = vSw[k];
         const cj = 0.5 * p.cjF * v * v * fsw;
         cond += vfI;
         const mean = p.rdOhm * msm;

@@ -111,7 +111,7 @@ function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet, 
   let ci = 0;
   for (const c of corners) {
     if (!c.fullLoad || ci >= MAX_CORNERS) continue;
-    w.data.fill(0);
+    w.reset();
     topology.operate(d, c.vinV, c.ioutA, w, s);
     e.cVin[ci] = c.vinV;
     for (let k = 0; k < n; k++) {

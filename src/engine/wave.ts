@@ -13,39 +13,78 @@
  * Over a segment x ∈ [0,1]: p(x) = a + (b−a)·x + 4w·x(1−x); mean (a+b)/2 + 2w/3, mean square
  * (a²+ab+b²)/3 + 2w(a+b)/3 + 8w²/15 (exact integrals of the parabola).
  *
- * Storage is a flat Float64Array so the corner evaluation allocates nothing.
+ * Storage is one flat Float64Array so the corner evaluation allocates nothing: a block of segment slots
+ * per component, then five per-component arrays (peak and DC voltage, switching edges) as views into
+ * the same buffer. Topologies write those views directly (`w.vPeakV[Q1] = …`): an element store passes
+ * no floating-point argument through a call, and such an argument costs an allocation whenever the JIT
+ * leaves the call out of line (V8 boxes it), which a setter method with many call sites risks.
  */
 
 export const MAX_SEGMENTS = 4;
-/** Slots per component: [n, f0..f3, a0..a3, b0..b3, vPeak, vDc, iOn, iOff, vSw, w0..w3]. */
-export const WAVE_STRIDE = 6 + 4 * MAX_SEGMENTS;
+/** Segment slots per component: [n, f0..f3, a0..a3, b0..b3, w0..w3]. */
+export const WAVE_STRIDE = 1 + 4 * MAX_SEGMENTS;
 const F = 1;
 const A = 1 + MAX_SEGMENTS;
 const B = 1 + 2 * MAX_SEGMENTS;
-const VPEAK = 1 + 3 * MAX_SEGMENTS;
-const VDC = VPEAK + 1;
-const ION = VPEAK + 2;
-const IOFF = VPEAK + 3;
-const VSW = VPEAK + 4;
 /** Bow of each segment: midpoint minus the chord's midpoint (0 for straight segments). */
-const W = VPEAK + 5;
+const W = 1 + 3 * MAX_SEGMENTS;
+
+/** `keep` masks of WaveSet.combine: bit j keeps segment j. */
+export const SEGMENT_0 = 1;
+export const SEGMENT_1 = 2;
+export const SEGMENT_2 = 4;
+export const ALL_SEGMENTS = (1 << MAX_SEGMENTS) - 1;
 
 /** A set of per-component piecewise-linear current waveforms plus each part's peak and DC voltage. */
 export class WaveSet {
+  /** Segment blocks of every component, then the five per-component arrays below (one buffer). */
   readonly data: Float64Array;
+  /** Peak voltage magnitude across each part (V). */
+  readonly vPeakV: Float64Array;
+  /** DC voltage across each part (V; a capacitor's bias). */
+  readonly vDcV: Float64Array;
+  /**
+   * Switching edges of each hard-switched part: current at turn-on and at turn-off (A) and the voltage
+   * magnitude it switches (V); zero for parts that do not switch at this operating point.
+   */
+  readonly iOnA: Float64Array;
+  readonly iOffA: Float64Array;
+  readonly vSwV: Float64Array;
+
   constructor(readonly count: number) {
-    this.data = new Float64Array(count * WAVE_STRIDE);
+    const segments = count * WAVE_STRIDE;
+    this.data = new Float64Array(segments + 5 * count);
+    this.vPeakV = this.data.subarray(segments, segments + count);
+    this.vDcV = this.data.subarray(segments + count, segments + 2 * count);
+    this.iOnA = this.data.subarray(segments + 2 * count, segments + 3 * count);
+    this.iOffA = this.data.subarray(segments + 3 * count, segments + 4 * count);
+    this.vSwV = this.data.subarray(segments + 4 * count, segments + 5 * count);
+  }
+
+  /** Every waveform, voltage and edge back to zero. */
+  reset(): void {
+    this.data.fill(0);
   }
 
   clear(k: number): void {
     this.data.fill(0, k * WAVE_STRIDE, (k + 1) * WAVE_STRIDE);
+    this.vPeakV[k] = 0;
+    this.vDcV[k] = 0;
+    this.iOnA[k] = 0;
+    this.iOffA[k] = 0;
+    this.vSwV[k] = 0;
   }
 
-  /** Set a two-segment waveform: fraction d with values a0→b0, then 1−d with a1→b1. */
-  set2(k: number, d: number, a0: number, b0: number, a1: number, b1: number): void {
+  /**
+   * Set a two-segment waveform: fraction d with values a0→b0, then 1−d with a1→b1; w0 and w1 bow the
+   * segments (see setBow), straight by default.
+   */
+  set2(k: number, d: number, a0: number, b0: number, a1: number, b1: number, w0 = 0, w1 = 0): void {
     const o = k * WAVE_STRIDE;
     const w = this.data;
     w[o] = 2;
+    w[o + W] = w0;
+    w[o + W + 1] = w1;
     w[o + F] = d;
     w[o + F + 1] = 1 - d;
     w[o + A] = a0;
@@ -54,7 +93,7 @@ export class WaveSet {
     w[o + B + 1] = b1;
   }
 
-  /** Set a three-segment waveform. */
+  /** Set a three-segment waveform (straight segments). */
   set3(
     k: number,
     f: Fractions3,
@@ -68,6 +107,9 @@ export class WaveSet {
     const o = k * WAVE_STRIDE;
     const w = this.data;
     w[o] = 3;
+    w[o + W] = 0;
+    w[o + W + 1] = 0;
+    w[o + W + 2] = 0;
     w[o + F] = f.d0;
     w[o + F + 1] = f.d1;
     w[o + F + 2] = f.d2;
@@ -87,35 +129,58 @@ export class WaveSet {
     return this.data[k * WAVE_STRIDE + W + j];
   }
 
+  /**
+   * Component dst carries c1·(current of k1) in the segments whose bit is set in keep1, plus
+   * c2·(current of k2) in those set in keep2, and nothing elsewhere; segment times come from k1 (k1 and
+   * k2 must share them: branches of one switching network), bows combine like the currents. c1 and c2
+   * are small integers (±1, 0), so the corner loop passes no floating-point arguments here: a call the
+   * JIT leaves out of line costs no allocation. `shift` then adds a constant.
+   */
+  combine(dst: number, k1: number, c1: number, keep1: number, k2: number, c2: number, keep2: number): void {
+    const w = this.data;
+    const o = dst * WAVE_STRIDE;
+    const o1 = k1 * WAVE_STRIDE;
+    const o2 = k2 * WAVE_STRIDE;
+    const n = w[o1];
+    w[o] = n;
+    for (let j = 0; j < n; j++) {
+      const x1 = (keep1 >> j) & 1 ? c1 : 0;
+      const x2 = (keep2 >> j) & 1 ? c2 : 0;
+      w[o + F + j] = w[o1 + F + j];
+      w[o + A + j] = x1 * w[o1 + A + j] + x2 * w[o2 + A + j];
+      w[o + B + j] = x1 * w[o1 + B + j] + x2 * w[o2 + B + j];
+      w[o + W + j] = x1 * w[o1 + W + j] + x2 * w[o2 + W + j];
+    }
+  }
+
+  /** Component dst as component src (its segments and bows; not its voltages or edges). */
+  copy(dst: number, src: number): void {
+    this.combine(dst, src, 1, ALL_SEGMENTS, src, 0, 0);
+  }
+
+  /** Add the constant i (A) to every segment of component k. */
+  shift(k: number, i: number): void {
+    const w = this.data;
+    const o = k * WAVE_STRIDE;
+    for (let j = 0; j < w[o]; j++) {
+      w[o + A + j] += i;
+      w[o + B + j] += i;
+    }
+  }
+
   /** A constant current (DC through the whole period). */
   setDc(k: number, i: number): void {
     this.set2(k, 0.5, i, i, i, i);
   }
 
-  setVoltage(k: number, vPeakV: number, vDcV: number): void {
-    const o = k * WAVE_STRIDE;
-    this.data[o + VPEAK] = Math.abs(vPeakV);
-    this.data[o + VDC] = vDcV;
-  }
-
-  /**
-   * Switching edges of a hard-switched part: current at turn-on and at turn-off (A) and the voltage
-   * it switches (V). Zero for parts that do not switch at this operating point.
-   */
-  setEdges(k: number, iOnA: number, iOffA: number, vSwV: number): void {
-    const o = k * WAVE_STRIDE;
-    this.data[o + ION] = iOnA;
-    this.data[o + IOFF] = iOffA;
-    this.data[o + VSW] = Math.abs(vSwV);
-  }
   iOn(k: number): number {
-    return this.data[k * WAVE_STRIDE + ION];
+    return this.iOnA[k];
   }
   iOff(k: number): number {
-    return this.data[k * WAVE_STRIDE + IOFF];
+    return this.iOffA[k];
   }
   vSw(k: number): number {
-    return this.data[k * WAVE_STRIDE + VSW];
+    return this.vSwV[k];
   }
 
   segments(k: number): number {
@@ -131,10 +196,10 @@ export class WaveSet {
     return this.data[k * WAVE_STRIDE + B + j];
   }
   vPeak(k: number): number {
-    return this.data[k * WAVE_STRIDE + VPEAK];
+    return this.vPeakV[k];
   }
   vDc(k: number): number {
-    return this.data[k * WAVE_STRIDE + VDC];
+    return this.vDcV[k];
   }
 
   /** Average over the period: Σ f·((a+b)/2 + 2w/3). */

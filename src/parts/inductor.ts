@@ -96,12 +96,15 @@ export function igseLossDensity(
 
 // Per-call constants of the triangle form, kept from the previous call: a study evaluates one design
 // (one material, one fsw) at several corners, and the windings of one corner share their fractions.
+// The numbers live in a typed array: a module-level `let` holding a double is a context slot, and
+// every store to it allocates a heap number (V8), which the corner loop must not do.
 let triMaterial: CoreMaterial | undefined;
-let triFswHz = Number.NaN;
-let triKiFsw = 0;
-let triF0 = Number.NaN;
-let triF1 = Number.NaN;
-let triShape = 0;
+const tri = new Float64Array([Number.NaN, 0, Number.NaN, Number.NaN, 0]);
+const TRI_FSW = 0;
+const TRI_KI_FSW = 1;
+const TRI_F0 = 2;
+const TRI_F1 = 3;
+const TRI_SHAPE = 4;
 
 /**
  * iGSE core loss density (W/m³) of a triangular flux: rise by dBT (T, > 0) over fraction f0 of the
@@ -118,16 +121,16 @@ export function igseTriangleLossDensity(
 ): number {
   if (!(dBT > 0) || m.k === 0) return 0;
   const a = m.alpha;
-  if (m !== triMaterial || fswHz !== triFswHz) {
-    triKiFsw = igseKi(m) * Math.exp(a * Math.log(fswHz));
+  if (m !== triMaterial || fswHz !== tri[TRI_FSW]) {
+    tri[TRI_KI_FSW] = igseKi(m) * Math.exp(a * Math.log(fswHz));
     triMaterial = m;
-    triFswHz = fswHz;
-    triF0 = Number.NaN;
+    tri[TRI_FSW] = fswHz;
+    tri[TRI_F0] = Number.NaN;
   }
-  if (f0 !== triF0 || f1 !== triF1) {
-    triShape = Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
-    triF0 = f0;
-    triF1 = f1;
+  if (f0 !== tri[TRI_F0] || f1 !== tri[TRI_F1]) {
+    tri[TRI_SHAPE] = Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
+    tri[TRI_F0] = f0;
+    tri[TRI_F1] = f1;
   }
-  return triKiFsw * Math.exp(m.beta * Math.log(dBT)) * triShape;
+  return tri[TRI_KI_FSW] * Math.exp(m.beta * Math.log(dBT)) * tri[TRI_SHAPE];
 }

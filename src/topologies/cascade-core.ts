@@ -148,13 +148,18 @@ export function solveCascade(
     sumWaves(w, CBUS, L1, 1, L2, -1, true); // buck inductor in, boost inductor out
     sumWaves(w, COUT, RECT2, 1, -1, 0, true); // output: the boost rectifier current
   }
-  w.setVoltage(CIN, vin, vin);
-  w.setVoltage(CBUS, vbus, vbus);
-  w.setVoltage(COUT, vout, vout);
+  w.vPeakV[CIN] = Math.abs(vin);
+  w.vDcV[CIN] = vin;
+  w.vPeakV[CBUS] = Math.abs(vbus);
+  w.vDcV[CBUS] = vbus;
+  w.vPeakV[COUT] = Math.abs(vout);
+  w.vDcV[COUT] = vout;
   w.setDc(U1, 0);
   w.setDc(U2, 0);
-  w.setVoltage(U1, vin, vin);
-  w.setVoltage(U2, vbus, vbus);
+  w.vPeakV[U1] = Math.abs(vin);
+  w.vDcV[U1] = vin;
+  w.vPeakV[U2] = Math.abs(vbus);
+  w.vDcV[U2] = vbus;
 }
 
 /** The topology's `operate`: both stages, then the scalars (duty = stage 1, duty2 = stage 2). */

@@ -23,7 +23,7 @@
  * left out, small at the light load where DCM occurs).
  */
 import type { Design } from '../engine/design.ts';
-import type { Fractions3, WaveSet } from '../engine/wave.ts';
+import { type Fractions3, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import {
   type CcmDuty,
   type DcmDuty,
@@ -156,6 +156,7 @@ export function writeCommonWaves(
   vRectSwV: number,
   w: WaveSet,
 ): number {
+  let il1Avg: number;
   if (pt.mode === 'ccm') {
     const D = pt.duty;
     const a1 = pt.il1A - pt.di1A / 2;
@@ -164,26 +165,29 @@ export function writeCommonWaves(
     const b2 = pt.il2A + pt.di2A / 2;
     w.set2(L1, D, a1, b1, b1, a1);
     w.set2(L2, D, a2, b2, b2, a2);
-    w.set2(Q1, D, a1 + a2, b1 + b2, 0, 0);
-    w.set2(RS, D, a1 + a2, b1 + b2, 0, 0);
-    w.set2(RECT, D, 0, 0, b1 + b2, a1 + a2);
-    w.set2(COUT, D, a2 - iout, b2 - iout, b2 - iout, a2 - iout);
-    w.setEdges(Q1, a1 + a2, b1 + b2, vQ1SwV);
-    w.setEdges(RECT, a1 + a2, b1 + b2, vRectSwV);
-    return pt.il1A;
+    w.iOnA[Q1] = a1 + a2;
+    w.iOffA[Q1] = b1 + b2;
+    w.iOnA[RECT] = a1 + a2;
+    w.iOffA[RECT] = b1 + b2;
+    il1Avg = pt.il1A;
+  } else {
+    const f = pt.f;
+    const i0 = pt.i0A;
+    const h1 = i0 + pt.di1A;
+    const h2 = -i0 + pt.di2A;
+    w.set3(L1, f, i0, h1, h1, i0, i0, i0);
+    w.set3(L2, f, -i0, h2, h2, -i0, -i0, -i0);
+    w.iOffA[Q1] = pt.peakA; // on at zero current; the rectifier turns off at zero current
+    il1Avg = i0 + 0.5 * pt.di1A * (f.d0 + f.d1);
   }
-  const f = pt.f;
-  const i0 = pt.i0A;
-  const pk = pt.peakA;
-  const h1 = i0 + pt.di1A;
-  const h2 = -i0 + pt.di2A;
-  w.set3(L1, f, i0, h1, h1, i0, i0, i0);
-  w.set3(L2, f, -i0, h2, h2, -i0, -i0, -i0);
-  w.set3(Q1, f, 0, pk, 0, 0, 0, 0);
-  w.set3(RS, f, 0, pk, 0, 0, 0, 0);
-  w.set3(RECT, f, 0, 0, pk, 0, 0, 0);
-  w.set3(COUT, f, -i0 - iout, h2 - iout, h2 - iout, -i0 - iout, -i0 - iout, -i0 - iout);
-  w.setEdges(Q1, 0, pk, vQ1SwV);
-  w.setEdges(RECT, 0, 0, vRectSwV);
-  return i0 + 0.5 * pt.di1A * (f.d0 + f.d1);
+  w.vSwV[Q1] = Math.abs(vQ1SwV);
+  w.vSwV[RECT] = Math.abs(vRectSwV);
+  // the switch (and its sense resistor) carries both inductor currents while on, the rectifier both
+  // while off; Cout takes L2's ripple (CCM and DCM alike)
+  w.combine(Q1, L1, 1, SEGMENT_0, L2, 1, SEGMENT_0);
+  w.copy(RS, Q1);
+  w.combine(RECT, L1, 1, SEGMENT_1, L2, 1, SEGMENT_1);
+  w.copy(COUT, L2);
+  w.shift(COUT, -iout);
+  return il1Avg;
 }

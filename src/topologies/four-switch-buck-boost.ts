@@ -162,8 +162,10 @@ function writeEdges(w: WaveSet, k: number, mask: number, vSwV: number): void {
     if (first < 0) first = j;
     last = j;
   }
-  if (first < 0 || frac >= 1 - 1e-12) w.setEdges(k, 0, 0, 0);
-  else w.setEdges(k, segA[first], segB[last], vSwV);
+  const switches = first >= 0 && frac < 1 - 1e-12;
+  w.iOnA[k] = switches ? segA[first] : 0;
+  w.iOffA[k] = switches ? segB[last] : 0;
+  w.vSwV[k] = switches ? Math.abs(vSwV) : 0;
 }
 
 export function operateFourSwitch(
@@ -259,20 +261,39 @@ export function operateFourSwitch(
   writeEdges(w, R2, ON_R2, vin);
   writeEdges(w, Q3, ON_Q3, vQ3);
   writeEdges(w, R4, ON_R4, vout);
-  w.setEdges(L1, 0, 0, 0);
-  w.setEdges(RS, 0, 0, 0);
-  w.setEdges(CIN, 0, 0, 0);
-  w.setEdges(COUT, 0, 0, 0);
-  w.setEdges(U1, 0, 0, 0);
-  w.setVoltage(Q1, vQ1, 0);
-  w.setVoltage(R2, vin, 0);
-  w.setVoltage(Q3, vQ3, 0);
-  w.setVoltage(R4, vout, 0);
-  w.setVoltage(L1, vL, 0);
-  w.setVoltage(RS, 0, 0);
-  w.setVoltage(CIN, vin, vin);
-  w.setVoltage(COUT, vout, vout);
-  w.setVoltage(U1, vin, vin);
+  w.iOnA[L1] = 0;
+  w.iOffA[L1] = 0;
+  w.vSwV[L1] = 0;
+  w.iOnA[RS] = 0;
+  w.iOffA[RS] = 0;
+  w.vSwV[RS] = 0;
+  w.iOnA[CIN] = 0;
+  w.iOffA[CIN] = 0;
+  w.vSwV[CIN] = 0;
+  w.iOnA[COUT] = 0;
+  w.iOffA[COUT] = 0;
+  w.vSwV[COUT] = 0;
+  w.iOnA[U1] = 0;
+  w.iOffA[U1] = 0;
+  w.vSwV[U1] = 0;
+  w.vPeakV[Q1] = Math.abs(vQ1);
+  w.vDcV[Q1] = 0;
+  w.vPeakV[R2] = Math.abs(vin);
+  w.vDcV[R2] = 0;
+  w.vPeakV[Q3] = Math.abs(vQ3);
+  w.vDcV[Q3] = 0;
+  w.vPeakV[R4] = Math.abs(vout);
+  w.vDcV[R4] = 0;
+  w.vPeakV[L1] = Math.abs(vL);
+  w.vDcV[L1] = 0;
+  w.vPeakV[RS] = 0;
+  w.vDcV[RS] = 0;
+  w.vPeakV[CIN] = Math.abs(vin);
+  w.vDcV[CIN] = vin;
+  w.vPeakV[COUT] = Math.abs(vout);
+  w.vDcV[COUT] = vout;
+  w.vPeakV[U1] = Math.abs(vin);
+  w.vDcV[U1] = vin;
 }
 
 /** The design's own risks: the transition band and the boost region's RHP zero. */

@@ -19,7 +19,7 @@
  */
 import type { Design } from '../engine/design.ts';
 import type { Caution, RectifierKind } from '../engine/types.ts';
-import type { Fractions3, WaveSet } from '../engine/wave.ts';
+import { type Fractions3, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatSi } from '../units/format.ts';
 import { type CcmDuty, type DcmDuty, solveCcmDuty, solveDcmDuty } from './buck-boost-family.ts';
@@ -130,13 +130,12 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
     const iin = D * il;
     s.iinA = iin;
     w.set2(L1, D, a, b, b, a);
-    w.set2(Q1, D, a, b, 0, 0);
-    w.set2(RS, D, a, b, 0, 0);
-    w.set2(RECT, D, 0, 0, b, a);
-    w.set2(CIN, D, a - iin, b - iin, -iin, -iin);
-    w.set2(COUT, D, -iout, -iout, b - iout, a - iout);
-    w.setEdges(Q1, a, b, vin + vo + vd);
-    w.setEdges(RECT, a, b, vin - il * rq + vo);
+    w.iOnA[Q1] = a;
+    w.iOffA[Q1] = b;
+    w.vSwV[Q1] = Math.abs(vin + vo + vd);
+    w.iOnA[RECT] = a;
+    w.iOffA[RECT] = b;
+    w.vSwV[RECT] = Math.abs(vin - il * rq + vo);
   } else {
     // three intervals: D (switch), D2 (rectifier), D3 (idle, iL = 0)
     D = dcm.duty;
@@ -150,22 +149,29 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
     s.converged = dcm.converged;
     s.iinA = iin;
     w.set3(L1, f, 0, pk, pk, 0, 0, 0);
-    w.set3(Q1, f, 0, pk, 0, 0, 0, 0);
-    w.set3(RS, f, 0, pk, 0, 0, 0, 0);
-    w.set3(RECT, f, 0, 0, pk, 0, 0, 0);
-    w.set3(CIN, f, -iin, pk - iin, -iin, -iin, -iin, -iin);
-    w.set3(COUT, f, -iout, -iout, pk - iout, -iout, -iout, -iout);
-    w.setEdges(Q1, 0, pk, vin + vo + vf);
-    w.setEdges(RECT, 0, 0, vin + vo);
+    w.iOffA[Q1] = pk;
+    w.vSwV[Q1] = Math.abs(vin + vo + vf);
+    w.vSwV[RECT] = Math.abs(vin + vo);
   }
+  // The switch (and its sense resistor) carries the inductor current while on, the rectifier while off;
+  // Cin carries the switch current's AC, Cout the rectifier's minus Iout (CCM and DCM alike).
+  w.combine(Q1, L1, 1, SEGMENT_0, L1, 0, 0);
+  w.copy(RS, Q1);
+  w.combine(RECT, L1, 1, SEGMENT_1, L1, 0, 0);
+  w.copy(CIN, Q1);
+  w.shift(CIN, -s.iinA);
+  w.copy(COUT, RECT);
+  w.shift(COUT, -iout);
   w.setDc(U1, 0);
-  w.setVoltage(Q1, vin + vo + vd, 0);
-  w.setVoltage(RS, 0, 0);
-  w.setVoltage(RECT, vin - il * rq + vo, 0);
-  w.setVoltage(L1, Math.max(Math.abs(vOn), vOff), 0);
-  w.setVoltage(CIN, vin, vin);
-  w.setVoltage(COUT, vo, vo);
-  w.setVoltage(U1, vin + vo, vin + vo);
+  w.vPeakV[Q1] = Math.abs(vin + vo + vd);
+  w.vPeakV[RECT] = Math.abs(vin - il * rq + vo);
+  w.vPeakV[L1] = Math.max(Math.abs(vOn), Math.abs(vOff));
+  w.vPeakV[CIN] = Math.abs(vin);
+  w.vDcV[CIN] = vin;
+  w.vPeakV[COUT] = Math.abs(vo);
+  w.vDcV[COUT] = vo;
+  w.vPeakV[U1] = Math.abs(vin + vo);
+  w.vDcV[U1] = vin + vo;
 }
 
 function cautions(d: Design, spec: RailSpec, nominal: OperatingScalars): Caution[] {

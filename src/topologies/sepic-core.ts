@@ -18,7 +18,7 @@
  */
 import type { Design } from '../engine/design.ts';
 import type { RectifierKind } from '../engine/types.ts';
-import type { WaveSet } from '../engine/wave.ts';
+import { ALL_SEGMENTS, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import type { ComponentSpec, OperatingScalars } from './topology.ts';
 
 export type SepicVariant = 'separate' | 'coupled' | 'damped';
@@ -273,28 +273,14 @@ export function operateSepic(
     // the input current is the input winding's average, bows included
     const iin = il1 + s1 + (2 / 3) * (D * w1on + Dp * w1off);
     s.iinA = iin;
-    w.set2(L1, D, a1, b1, b1, a1);
-    w.set2(L2, D, a2, b2, b2, a2);
-    w.set2(Q1, D, a1 + a2, b1 + b2, 0, 0);
-    w.set2(RS, D, a1 + a2, b1 + b2, 0, 0);
-    w.set2(RECT, D, 0, 0, b1 + b2, a1 + a2);
-    w.set2(CS, D, -a2, -b2, b1, a1);
-    w.set2(CIN, D, a1 - iin, b1 - iin, b1 - iin, a1 - iin);
-    w.set2(COUT, D, -iout, -iout, b1 + b2 - iout, a1 + a2 - iout);
-    w.setBow(L1, 0, w1on);
-    w.setBow(L1, 1, w1off);
-    w.setBow(L2, 0, w2on);
-    w.setBow(L2, 1, w2off);
-    w.setBow(Q1, 0, w1on + w2on);
-    w.setBow(RS, 0, w1on + w2on);
-    w.setBow(RECT, 1, w1off + w2off);
-    w.setBow(CS, 0, -w2on);
-    w.setBow(CS, 1, w1off);
-    w.setBow(CIN, 0, w1on);
-    w.setBow(CIN, 1, w1off);
-    w.setBow(COUT, 1, w1off + w2off);
-    w.setEdges(Q1, a1 + a2, b1 + b2, vcs + vout + vd);
-    w.setEdges(RECT, a1 + a2, b1 + b2, vcs + vout - isw * rq);
+    w.set2(L1, D, a1, b1, b1, a1, w1on, w1off);
+    w.set2(L2, D, a2, b2, b2, a2, w2on, w2off);
+    w.iOnA[Q1] = a1 + a2;
+    w.iOffA[Q1] = b1 + b2;
+    w.vSwV[Q1] = Math.abs(vcs + vout + vd);
+    w.iOnA[RECT] = a1 + a2;
+    w.iOffA[RECT] = b1 + b2;
+    w.vSwV[RECT] = Math.abs(vcs + vout - isw * rq);
   } else {
     // three intervals: D (switch), d2 (rectifier), d3 (idle, iL1 = −iL2 = i0)
     const d3 = Math.max(0, 1 - D - d2);
@@ -311,25 +297,34 @@ export function operateSepic(
     w.set3(L1, f, i0, i0 + dI1, i0 + dI1, i0, i0, i0);
     w.set3(L2, f, -i0, -i0 + dI2, -i0 + dI2, -i0, -i0, -i0);
     const pk = dI1 + dI2;
-    w.set3(Q1, f, 0, pk, 0, 0, 0, 0);
-    w.set3(RS, f, 0, pk, 0, 0, 0, 0);
-    w.set3(RECT, f, 0, 0, pk, 0, 0, 0);
-    w.set3(CS, f, i0, i0 - dI2, i0 + dI1, i0, i0, i0);
-    w.set3(CIN, f, i0 - il1dcm, i0 + dI1 - il1dcm, i0 + dI1 - il1dcm, i0 - il1dcm, i0 - il1dcm, i0 - il1dcm);
-    w.set3(COUT, f, -iout, -iout, pk - iout, -iout, -iout, -iout);
-    w.setEdges(Q1, 0, pk, vin + vout);
-    w.setEdges(RECT, 0, 0, vin + vout);
+    w.iOffA[Q1] = pk;
+    w.vSwV[Q1] = Math.abs(vin + vout);
+    w.vSwV[RECT] = Math.abs(vin + vout);
   }
+  // Every other branch follows from the two winding currents, the same way in CCM and DCM: the switch
+  // (and its sense resistor) carries both while on, the rectifier both while off, the coupling
+  // capacitor −iL2 while on and iL1 otherwise; Cin carries iL1's AC, Cout the rectifier's minus Iout.
+  w.combine(Q1, L1, 1, SEGMENT_0, L2, 1, SEGMENT_0);
+  w.copy(RS, Q1);
+  w.combine(RECT, L1, 1, SEGMENT_1, L2, 1, SEGMENT_1);
+  w.combine(CS, L2, -1, SEGMENT_0, L1, 1, ALL_SEGMENTS & ~SEGMENT_0);
+  w.copy(CIN, L1);
+  w.shift(CIN, -s.iinA);
+  w.copy(COUT, RECT);
+  w.shift(COUT, -iout);
   w.setDc(U1, 0);
-  w.setVoltage(Q1, vcs + vout + vd, 0);
-  w.setVoltage(RS, 0, 0);
-  w.setVoltage(RECT, vcs + vout, 0);
-  w.setVoltage(L1, Math.max(Math.abs(v1on), vcs + vout + vd - vin), 0);
-  w.setVoltage(L2, Math.max(Math.abs(v2on), vout + vd), 0);
-  w.setVoltage(CS, vcs, vcs);
-  w.setVoltage(CIN, vin, vin);
-  w.setVoltage(COUT, vout, vout);
-  w.setVoltage(U1, vin, vin);
+  w.vPeakV[Q1] = Math.abs(vcs + vout + vd);
+  w.vPeakV[RECT] = Math.abs(vcs + vout);
+  w.vPeakV[L1] = Math.max(Math.abs(v1on), Math.abs(vcs + vout + vd - vin));
+  w.vPeakV[L2] = Math.max(Math.abs(v2on), Math.abs(vout + vd));
+  w.vPeakV[CS] = Math.abs(vcs);
+  w.vDcV[CS] = vcs;
+  w.vPeakV[CIN] = Math.abs(vin);
+  w.vDcV[CIN] = vin;
+  w.vPeakV[COUT] = Math.abs(vout);
+  w.vDcV[COUT] = vout;
+  w.vPeakV[U1] = Math.abs(vin);
+  w.vDcV[U1] = vin;
 
   if (variant === 'damped') {
     // The damping leg sees the coupling capacitor's ripple; at fsw Cd is nearly a short, so the
@@ -340,7 +335,8 @@ export function operateSepic(
     const x = rd > 0 ? (0.5 * dv) / rd : 0;
     w.set2(RD, D, -x, x, x, -x);
     w.set2(CD, D, -x, x, x, -x);
-    w.setVoltage(CD, vcs, vcs);
-    w.setVoltage(RD, dv, 0);
+    w.vPeakV[CD] = Math.abs(vcs);
+    w.vDcV[CD] = vcs;
+    w.vPeakV[RD] = Math.abs(dv);
   }
 }

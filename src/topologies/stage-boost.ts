@@ -84,8 +84,12 @@ export function operateBoostStage(
       w.set3(slots.sw, f3, 0, ipk, 0, 0, 0, 0);
       w.set3(slots.sense, f3, 0, ipk, 0, 0, 0, 0);
       w.set3(slots.rect, f3, 0, 0, ipk, 0, 0, 0);
-      w.setEdges(slots.sw, 0, ipk, a);
-      w.setEdges(slots.rect, 0, 0, voV);
+      w.iOnA[slots.sw] = 0;
+      w.iOffA[slots.sw] = ipk;
+      w.vSwV[slots.sw] = Math.abs(a);
+      w.iOnA[slots.rect] = 0;
+      w.iOffA[slots.rect] = 0;
+      w.vSwV[slots.rect] = Math.abs(voV);
       setBoostVoltages(slots, viV, voV, a, w);
       return;
     }
@@ -104,15 +108,23 @@ export function operateBoostStage(
   w.set2(slots.rect, D, 0, 0, hi, lo);
   // the switch turns on at the valley and off at the peak against Vo + Vd; the rectifier commutates
   // the same two currents (dead times of a synchronous rectifier) and blocks Vo
-  w.setEdges(slots.sw, lo, hi, voV + vd);
-  w.setEdges(slots.rect, lo, hi, voV);
+  w.iOnA[slots.sw] = lo;
+  w.iOffA[slots.sw] = hi;
+  w.vSwV[slots.sw] = Math.abs(voV + vd);
+  w.iOnA[slots.rect] = lo;
+  w.iOffA[slots.rect] = hi;
+  w.vSwV[slots.rect] = Math.abs(voV);
   setBoostVoltages(slots, vOn, voV, voV + vd, w);
 }
 
 function setBoostVoltages(slots: StageSlots, vOnV: number, voV: number, vSwOffV: number, w: WaveSet): void {
-  w.setVoltage(slots.sw, vSwOffV, 0);
-  w.setVoltage(slots.sense, 0, 0);
-  w.setVoltage(slots.rect, voV, 0);
+  w.vPeakV[slots.sw] = Math.abs(vSwOffV);
+  w.vDcV[slots.sw] = 0;
+  w.vPeakV[slots.sense] = 0;
+  w.vDcV[slots.sense] = 0;
+  w.vPeakV[slots.rect] = Math.abs(voV);
+  w.vDcV[slots.rect] = 0;
   // the inductor sees Vi (on) or Vo + Vd − Vi (off)
-  w.setVoltage(slots.inductor, Math.max(Math.abs(vOnV), vSwOffV - vOnV), 0);
+  w.vPeakV[slots.inductor] = Math.max(Math.abs(vOnV), Math.abs(vSwOffV - vOnV));
+  w.vDcV[slots.inductor] = 0;
 }

@@ -77,8 +77,12 @@ export function operateBuckStage(
       w.set3(slots.sw, f3, 0, ipk, 0, 0, 0, 0);
       w.set3(slots.sense, f3, 0, ipk, 0, 0, 0, 0);
       w.set3(slots.rect, f3, 0, 0, ipk, 0, 0, 0);
-      w.setEdges(slots.sw, 0, ipk, viV + vf);
-      w.setEdges(slots.rect, 0, 0, viV);
+      w.iOnA[slots.sw] = 0;
+      w.iOffA[slots.sw] = ipk;
+      w.vSwV[slots.sw] = Math.abs(viV + vf);
+      w.iOnA[slots.rect] = 0;
+      w.iOffA[slots.rect] = 0;
+      w.vSwV[slots.rect] = Math.abs(viV);
       setBuckVoltages(slots, viV, viV + vf, viV - voV, vo, w);
       return;
     }
@@ -97,8 +101,12 @@ export function operateBuckStage(
   w.set2(slots.rect, D, 0, 0, hi, lo);
   // the high-side switch turns on at the valley and off at the peak, swinging the switch node from
   // −Vd to Vi; the rectifier commutates the same two currents and blocks Vi
-  w.setEdges(slots.sw, lo, hi, viV + vd);
-  w.setEdges(slots.rect, lo, hi, viV);
+  w.iOnA[slots.sw] = lo;
+  w.iOffA[slots.sw] = hi;
+  w.vSwV[slots.sw] = Math.abs(viV + vd);
+  w.iOnA[slots.rect] = lo;
+  w.iOffA[slots.rect] = hi;
+  w.vSwV[slots.rect] = Math.abs(viV);
   setBuckVoltages(slots, viV, viV + vd, vOn, voV + vd + ioA * rl, w);
 }
 
@@ -110,8 +118,12 @@ function setBuckVoltages(
   vOffV: number,
   w: WaveSet,
 ): void {
-  w.setVoltage(slots.sw, vSwOffV, 0);
-  w.setVoltage(slots.sense, 0, 0);
-  w.setVoltage(slots.rect, viV, 0);
-  w.setVoltage(slots.inductor, Math.max(Math.abs(vOnV), vOffV), 0);
+  w.vPeakV[slots.sw] = Math.abs(vSwOffV);
+  w.vDcV[slots.sw] = 0;
+  w.vPeakV[slots.sense] = 0;
+  w.vDcV[slots.sense] = 0;
+  w.vPeakV[slots.rect] = Math.abs(viV);
+  w.vDcV[slots.rect] = 0;
+  w.vPeakV[slots.inductor] = Math.max(Math.abs(vOnV), Math.abs(vOffV));
+  w.vDcV[slots.inductor] = 0;
 }

@@ -59,8 +59,10 @@ export interface Topology {
   prepare?(design: Design, spec: RailSpec): void;
   /**
    * Steady state at one operating point: write every component's current waveform and peak/DC
-   * voltage into `waves`, and the scalars into `out`. Must not allocate. Voltages and currents use
-   * the design's present parasitics (drops included in the duty).
+   * voltage into `waves`, and the scalars into `out`. `waves` arrives zeroed (WaveSet.reset). Must not
+   * allocate: write voltages and edges as element stores into the WaveSet's arrays, and keep
+   * floating-point arguments off calls the JIT may leave out of line (see wave.ts). Voltages and
+   * currents use the design's present parasitics (drops included in the duty).
    */
   operate(design: Design, vinV: number, ioutA: number, waves: WaveSet, out: OperatingScalars): void;
   /** Topology-specific cautions (resonant overshoot, RHP zero ...) for a sized design. */

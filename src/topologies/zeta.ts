@@ -21,7 +21,7 @@
  */
 import type { Design } from '../engine/design.ts';
 import type { Caution, RectifierKind } from '../engine/types.ts';
-import type { WaveSet } from '../engine/wave.ts';
+import { ALL_SEGMENTS, SEGMENT_0, type WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { couplingResonanceCaution, couplingRhpZeroCaution } from './coupling-cautions.ts';
 import * as net from './coupling-network.ts';
@@ -112,31 +112,23 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
   s.mode = pt.mode;
   s.converged = pt.converged;
   s.iinA = iin;
-  // Cs current from A to B: +iL2 while Q1 conducts, −iL1 while the rectifier does.
-  if (pt.mode === 'ccm') {
-    const a1 = pt.il1A - pt.di1A / 2;
-    const b1 = pt.il1A + pt.di1A / 2;
-    const a2 = pt.il2A - pt.di2A / 2;
-    const b2 = pt.il2A + pt.di2A / 2;
-    w.set2(CS, pt.duty, a2, b2, -b1, -a1);
-    w.set2(CIN, pt.duty, a1 + a2 - iin, b1 + b2 - iin, -iin, -iin);
-  } else {
-    const i0 = pt.i0A;
-    const h1 = i0 + pt.di1A;
-    const h2 = -i0 + pt.di2A;
-    w.set3(CS, pt.f, -i0, h2, -h1, -i0, -i0, -i0);
-    w.set3(CIN, pt.f, -iin, pt.peakA - iin, -iin, -iin, -iin, -iin);
-  }
+  // Cs current from A to B: +iL2 while Q1 conducts, −iL1 otherwise; Cin supplies the switch current's AC.
+  w.combine(CS, L2, 1, SEGMENT_0, L1, -1, ALL_SEGMENTS & ~SEGMENT_0);
+  w.copy(CIN, Q1);
+  w.shift(CIN, -iin);
   w.setDc(U1, 0);
-  w.setVoltage(Q1, vQ1, 0);
-  w.setVoltage(RS, 0, 0);
-  w.setVoltage(RECT, vRect, 0);
-  w.setVoltage(L1, Math.max(Math.abs(pt.vOnV), pt.v1OffV), 0);
-  w.setVoltage(L2, Math.max(Math.abs(pt.vOnV), pt.v2OffV), 0);
-  w.setVoltage(CS, vcs, vcs);
-  w.setVoltage(CIN, vin, vin);
-  w.setVoltage(COUT, vo, vo);
-  w.setVoltage(U1, vin, vin);
+  w.vPeakV[Q1] = Math.abs(vQ1);
+  w.vPeakV[RECT] = Math.abs(vRect);
+  w.vPeakV[L1] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v1OffV));
+  w.vPeakV[L2] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v2OffV));
+  w.vPeakV[CS] = Math.abs(vcs);
+  w.vDcV[CS] = vcs;
+  w.vPeakV[CIN] = Math.abs(vin);
+  w.vDcV[CIN] = vin;
+  w.vPeakV[COUT] = Math.abs(vo);
+  w.vDcV[COUT] = vo;
+  w.vPeakV[U1] = Math.abs(vin);
+  w.vDcV[U1] = vin;
 }
 
 function cautions(d: Design, spec: RailSpec, nominal: OperatingScalars): Caution[] {
