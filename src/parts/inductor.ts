@@ -128,7 +128,11 @@ export function igseTriangleLossDensity(
     tri[TRI_F0] = Number.NaN;
   }
   if (f0 !== tri[TRI_F0] || f1 !== tri[TRI_F1]) {
-    tri[TRI_SHAPE] = Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
+    // f^(1−α); for the usual α = 1.5 of power ferrites that is 1/√f, a square root instead of exp and log
+    tri[TRI_SHAPE] =
+      a === 1.5
+        ? 1 / Math.sqrt(f0) + 1 / Math.sqrt(f1)
+        : Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
     tri[TRI_F0] = f0;
     tri[TRI_F1] = f1;
   }

@@ -17,7 +17,8 @@ const RTOL_ROUNDING = 1e-13;
 const material = fc.record({
   name: fc.constant('test ferrite'),
   k: fc.double({ min: 0.1, max: 100, noNaN: true }),
-  alpha: fc.double({ min: 1.05, max: 1.9, noNaN: true }),
+  // 1.5 exactly takes the square-root path of the triangle form
+  alpha: fc.oneof(fc.constant(1.5), fc.double({ min: 1.05, max: 1.9, noNaN: true })),
   beta: fc.double({ min: 2, max: 3, noNaN: true }),
   bMaxT: fc.constant(0.3),
 });
