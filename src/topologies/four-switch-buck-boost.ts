@@ -45,7 +45,6 @@ const ON_Q1 = (1 << A) | (1 << B);
 const ON_R2 = 1 << C;
 const ON_Q3 = 1 << A;
 const ON_R4 = (1 << B) | (1 << C);
-const ON_ALL = 0b1111;
 
 // module-level scratch: operate() must not allocate
 const drops = newDrops();
@@ -106,41 +105,28 @@ function compactSegments(): void {
   }
 }
 
-/** Branch current over the intervals: sign·iL where the mask conducts, plus a constant offset (A). */
-function writeBranch(w: WaveSet, k: number, mask: number, sign: number, offset: number): void {
-  const s0 = (mask >> useKind[0]) & 1 ? sign : 0;
+/** The inductor current over the compacted intervals (A). */
+function writeInductor(w: WaveSet): void {
   if (nSeg === 1) {
-    const b = offset + s0 * scratchB[0];
-    w.set2(k, 1, offset + s0 * scratchA[0], b, b, b);
-    return;
+    const b = scratchB[0];
+    w.set2(L1, 1, scratchA[0], b, b, b);
+  } else if (nSeg === 2) {
+    w.set2(L1, scratchF[0], scratchA[0], scratchB[0], scratchA[1], scratchB[1]);
+  } else {
+    f3.d0 = scratchF[0];
+    f3.d1 = scratchF[1];
+    f3.d2 = scratchF[2];
+    w.set3(L1, f3, scratchA[0], scratchB[0], scratchA[1], scratchB[1], scratchA[2], scratchB[2]);
   }
-  const s1 = (mask >> useKind[1]) & 1 ? sign : 0;
-  if (nSeg === 2) {
-    w.set2(
-      k,
-      scratchF[0],
-      offset + s0 * scratchA[0],
-      offset + s0 * scratchB[0],
-      offset + s1 * scratchA[1],
-      offset + s1 * scratchB[1],
-    );
-    return;
-  }
-  const s2 = (mask >> useKind[2]) & 1 ? sign : 0;
-  f3.d0 = scratchF[0];
-  f3.d1 = scratchF[1];
-  f3.d2 = scratchF[2];
-  w.set3(
-    k,
-    f3,
-    offset + s0 * scratchA[0],
-    offset + s0 * scratchB[0],
-    offset + s1 * scratchA[1],
-    offset + s1 * scratchB[1],
-    offset + s2 * scratchA[2],
-    offset + s2 * scratchB[2],
-  );
 }
+
+/** WaveSet.combine's segment mask of the compacted intervals whose kind is in `kinds` (a kind mask). */
+function segmentsOf(kinds: number): number {
+  let m = 0;
+  for (let j = 0; j < nSeg; j++) if ((kinds >> useKind[j]) & 1) m |= 1 << j;
+  return m;
+}
+
 /** Average of iL over the intervals where the mask conducts (A). */
 function branchAverage(mask: number): number {
   let s = 0;
@@ -242,14 +228,18 @@ export function operateFourSwitch(
   const iin = branchAverage(ON_Q1);
   s.iinA = iin;
   compactSegments();
-  writeBranch(w, Q1, ON_Q1, 1, 0);
-  writeBranch(w, R2, ON_R2, 1, 0);
-  writeBranch(w, Q3, ON_Q3, 1, 0);
-  writeBranch(w, R4, ON_R4, 1, 0);
-  writeBranch(w, L1, ON_ALL, 1, 0);
-  writeBranch(w, RS, ON_ALL, 1, 0);
-  writeBranch(w, CIN, ON_Q1, -1, iin);
-  writeBranch(w, COUT, ON_R4, 1, -iout);
+  // every branch is iL where its switch conducts: the inductor written once, the rest masked from it
+  writeInductor(w);
+  w.copy(RS, L1);
+  w.combine(Q1, L1, 1, segmentsOf(ON_Q1), L1, 0, 0);
+  w.combine(R2, L1, 1, segmentsOf(ON_R2), L1, 0, 0);
+  w.combine(Q3, L1, 1, segmentsOf(ON_Q3), L1, 0, 0);
+  w.combine(R4, L1, 1, segmentsOf(ON_R4), L1, 0, 0);
+  // Cin supplies what the input does not while Q1 conducts; Cout takes Q4/D2's current minus the load
+  w.combine(CIN, L1, -1, segmentsOf(ON_Q1), L1, 0, 0);
+  w.shift(CIN, iin);
+  w.copy(COUT, R4);
+  w.shift(COUT, -iout);
   w.setDc(U1, 0);
 
   // Blocking voltages hold in every region (an idle switch still blocks its leg's voltage):
@@ -261,33 +251,11 @@ export function operateFourSwitch(
   writeEdges(w, R2, ON_R2, vin);
   writeEdges(w, Q3, ON_Q3, vQ3);
   writeEdges(w, R4, ON_R4, vout);
-  w.iOnA[L1] = 0;
-  w.iOffA[L1] = 0;
-  w.vSwV[L1] = 0;
-  w.iOnA[RS] = 0;
-  w.iOffA[RS] = 0;
-  w.vSwV[RS] = 0;
-  w.iOnA[CIN] = 0;
-  w.iOffA[CIN] = 0;
-  w.vSwV[CIN] = 0;
-  w.iOnA[COUT] = 0;
-  w.iOffA[COUT] = 0;
-  w.vSwV[COUT] = 0;
-  w.iOnA[U1] = 0;
-  w.iOffA[U1] = 0;
-  w.vSwV[U1] = 0;
   w.vPeakV[Q1] = Math.abs(vQ1);
-  w.vDcV[Q1] = 0;
   w.vPeakV[R2] = Math.abs(vin);
-  w.vDcV[R2] = 0;
   w.vPeakV[Q3] = Math.abs(vQ3);
-  w.vDcV[Q3] = 0;
   w.vPeakV[R4] = Math.abs(vout);
-  w.vDcV[R4] = 0;
   w.vPeakV[L1] = Math.abs(vL);
-  w.vDcV[L1] = 0;
-  w.vPeakV[RS] = 0;
-  w.vDcV[RS] = 0;
   w.vPeakV[CIN] = Math.abs(vin);
   w.vDcV[CIN] = vin;
   w.vPeakV[COUT] = Math.abs(vout);

@@ -227,9 +227,124 @@ export function solveFourSwitch(
   tOverL: number,
   out: FourSwitchPoint,
 ): void {
+  // The buck and boost regions have two intervals, where the fixed point has a closed form; the
+  // iteration below serves the transition region (and anything the closed forms do not settle).
+  const buck = solveBuckClosed(d, r, vin, iout, tOverL, out);
+  if (buck === IN_REGION) return;
+  const boost = solveBoostClosed(d, r, vin, iout, tOverL, out);
+  if (boost === IN_REGION) return;
+  // Both two-interval solutions exist and miss their regions: the transition region, as the iteration's
+  // own region tests would conclude (same fixed points). Otherwise let the iteration sort it out.
+  if (buck === OUTSIDE && boost === OUTSIDE && solveTransition(d, r, vin, iout, tOverL, out, true, false))
+    return;
+  solveFourSwitchByIteration(d, r, vin, iout, tOverL, out);
+}
+
+/** Outcomes of the closed forms: the point is in the region (out written), has a solution outside it, or none. */
+const IN_REGION = 0;
+const OUTSIDE = 1;
+const NO_SOLUTION = 2;
+
+/** solveFourSwitch by the fixed-point iteration alone, every region (the tests' reference for the closed forms). */
+export function solveFourSwitchByIteration(
+  d: Design,
+  r: FourSwitchDrops,
+  vin: number,
+  iout: number,
+  tOverL: number,
+  out: FourSwitchPoint,
+): void {
   // A test that stopped early leaves `out` short of its fixed point; that only shows when the solve
   // that follows fails before its first write. Then the region is found again without early stops.
   if (!solveRegion(d, r, vin, iout, tOverL, out, true)) solveRegion(d, r, vin, iout, tOverL, out, false);
+}
+
+/**
+ * The buck region in closed form (D3 = 0, intervals B and C only). With two intervals the ripple's
+ * segment means equal IL, and the output charge balance gives IL = Iout exactly, so the volt-second
+ * balance D1·vB + (1 − D1)·vC = 0 is linear: D1 = −vC/(vB − vC) — the header's fixed point in one step.
+ * Writes `out` only when the point is in the buck region (D1 < 1 and ≤ dutyMax).
+ */
+function solveBuckClosed(
+  d: Design,
+  r: FourSwitchDrops,
+  vin: number,
+  iout: number,
+  tOverL: number,
+  out: FourSwitchPoint,
+): number {
+  const vout = Math.abs(d.voutV);
+  const il = iout;
+  const vB = vin - vout - r.vf2V - (r.rq1Ohm + r.rlOhm + r.r4Ohm) * il;
+  const vC = -vout - r.vf2V - r.vf1V - (r.r2Ohm + r.rlOhm + r.r4Ohm) * il;
+  const den = vB - vC;
+  if (!(den > 0)) return NO_SOLUTION;
+  const d1 = -vC / den;
+  if (!(d1 >= 0)) return NO_SOLUTION;
+  if (!(d1 < 1 && d1 <= d.dutyMax)) return OUTSIDE;
+  const dIB = vB * d1 * tOverL;
+  // the empty interval A would sit at the start of B, half a ripple below IL
+  const vA = vin - (r.rq1Ohm + r.rlOhm + r.rq3Ohm) * (il - 0.5 * dIB);
+  out.region = 'buck';
+  out.d1 = d1;
+  out.d3 = 0;
+  out.ilA = il;
+  out.i0A = il - 0.5 * dIB;
+  out.i1A = out.i0A;
+  out.i2A = out.i0A + dIB;
+  out.vAV = vA;
+  out.vBV = vB;
+  out.vCV = vC;
+  out.converged = true;
+  return IN_REGION;
+}
+
+/**
+ * The boost region in closed form (D1 = 1, intervals A and B only). Again the segment means equal IL,
+ * now IL = Iout·u with u = 1/(1 − D3), and the balance D3·vA + (1 − D3)·vB = 0 becomes
+ *   rA·Iout·u² − (Vin + (rA − rB)·Iout)·u + (Vout + Vf2) = 0
+ * (vA = Vin − rA·IL, vB = Vin − Vout − Vf2 − rB·IL), whose smaller root is the one the iteration reaches
+ * from the ideal duty (the larger lies past the loss-limited peak ratio); cancellation-free 2c/(q + √…).
+ * Writes `out` only when the point is in the boost region (0 < D3, dutyMin ≤ D3).
+ */
+function solveBoostClosed(
+  d: Design,
+  r: FourSwitchDrops,
+  vin: number,
+  iout: number,
+  tOverL: number,
+  out: FourSwitchPoint,
+): number {
+  const vout = Math.abs(d.voutV);
+  const rA = r.rq1Ohm + r.rlOhm + r.rq3Ohm;
+  const rB = r.rq1Ohm + r.rlOhm + r.r4Ohm;
+  const rC = r.r2Ohm + r.rlOhm + r.r4Ohm;
+  const b = rA * iout;
+  const q = vin + (rA - rB) * iout;
+  const c = vout + r.vf2V;
+  const disc = q * q - 4 * b * c;
+  if (!(q > 0) || !(disc >= 0)) return NO_SOLUTION;
+  const u = (2 * c) / (q + Math.sqrt(disc));
+  const d3 = 1 - 1 / u;
+  if (!(d3 < 1)) return NO_SOLUTION;
+  if (!(d3 > 0 && d3 >= d.dutyMin)) return OUTSIDE;
+  const il = iout * u;
+  const vA = vin - rA * il;
+  const vB = vin - vout - r.vf2V - rB * il;
+  const dIA = vA * d3 * tOverL;
+  out.region = 'boost';
+  out.d1 = 1;
+  out.d3 = d3;
+  out.ilA = il;
+  out.i0A = il - 0.5 * dIA;
+  out.i1A = out.i0A + dIA;
+  out.i2A = out.i0A; // B returns the current to its start (balance)
+  out.vAV = vA;
+  out.vBV = vB;
+  // the empty interval C would sit at the end of B, half a ripple below IL
+  out.vCV = -vout - r.vf2V - r.vf1V - rC * (il - 0.5 * dIA);
+  out.converged = true;
+  return IN_REGION;
 }
 
 /** solveFourSwitch's region order; false when an early stop may have left its mark on `out`. */
@@ -263,6 +378,27 @@ function solveRegion(
     return !stopped || wroteOut;
   }
   stopped ||= boost === BEYOND;
+  return solveTransition(d, r, vin, iout, tOverL, out, early, stopped);
+}
+
+/**
+ * The transition region (both legs switch): the boost leg held at its minimum on-time while the buck
+ * leg can regulate, else the buck leg held at its maximum. `stopped`: an earlier region test stopped
+ * early (see solveFourSwitchByIteration); false when that may have left its mark on `out`.
+ */
+function solveTransition(
+  d: Design,
+  r: FourSwitchDrops,
+  vin: number,
+  iout: number,
+  tOverL: number,
+  out: FourSwitchPoint,
+  early: boolean,
+  stoppedBefore: boolean,
+): boolean {
+  const vout = Math.abs(d.voutV);
+  const maxD1 = early ? d.dutyMax : Number.NaN;
+  let stopped = stoppedBefore;
   out.region = 'buck-boost';
   const held = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', d.dutyMin, maxD1, out);
   if (held === SOLVED && out.d1 <= d.dutyMax) return true;

@@ -30,7 +30,13 @@ import type { Technology } from '../../src/parts/technology.ts';
 import { loadSpecText, loadTechnology } from '../../src/spec/load.ts';
 import type { RailSpec } from '../../src/spec/rail-spec.ts';
 import { fourSwitchBuckBoost as topology } from '../../src/topologies/four-switch-buck-boost.ts';
-import { transitionBandV } from '../../src/topologies/four-switch-solve.ts';
+import { newDrops, readDrops } from '../../src/topologies/four-switch-parts.ts';
+import {
+  newPoint,
+  solveFourSwitch,
+  solveFourSwitchByIteration,
+  transitionBandV,
+} from '../../src/topologies/four-switch-solve.ts';
 import { MODE_CODE, WORKED_EXAMPLES } from '../reference/worked-examples.ts';
 import { expectClose } from '../support/expect-close.ts';
 import { railSpec } from '../support/specs.ts';
@@ -494,5 +500,46 @@ describe('four-switch buck-boost: the three-interval transition solution against
     // rtol 1e-3: exponential versus straight segments differ at second order in R·T/L (≈ 1e-3 here)
     expectClose(ss.ioutA, 2, { rtol: 1e-3, what: 'output current of the brute-force run' });
     expectClose(ss.ilA, c.components.L1.iAvgA, { rtol: 1e-3, what: 'IL of the brute-force run' });
+  });
+});
+
+describe('four-switch closed forms of the buck and boost regions', () => {
+  // The two-interval regions are solved in closed form; the three-interval fixed point of the header
+  // (the iteration the closed forms replace) is the reference: same region, same numbers to rounding.
+  it('agree with the fixed-point iteration across the input range, both rectifiers, both technologies', () => {
+    let buck = 0;
+    let boost = 0;
+    let transition = 0;
+    for (const t of [tech, ideal]) {
+      for (const rect of ['sync', 'diode'] as const) {
+        const d = createDesign(topology, marine, params(rect), t);
+        sizeDesign(topology, d, marine, t, cornersFor(marine, topology));
+        const r = newDrops();
+        readDrops(d, r);
+        const tOverL = 1 / (d.params.fswHz * d.parts[indexOf(d.components, 'L1')].value);
+        for (let vin = 4; vin <= 40; vin += 0.173) {
+          for (const iout of [0.5, 2]) {
+            const fast = newPoint();
+            const slow = newPoint();
+            solveFourSwitch(d, r, vin, iout, tOverL, fast);
+            solveFourSwitchByIteration(d, r, vin, iout, tOverL, slow);
+            const what = `${t.name} ${rect} Vin ${vin.toFixed(3)} V, Iout ${iout} A`;
+            expect(fast.region, what).toBe(slow.region);
+            expect(fast.converged, what).toBe(slow.converged);
+            if (!slow.converged) continue;
+            for (const key of ['d1', 'd3', 'ilA', 'i0A', 'i1A', 'i2A', 'vAV', 'vBV', 'vCV'] as const) {
+              expectClose(fast[key], slow[key], { rtol: 1e-9, atol: 1e-9, what: `${what}: ${key}` });
+            }
+            if (slow.region === 'buck') buck++;
+            else if (slow.region === 'boost') boost++;
+            else transition++;
+          }
+        }
+      }
+    }
+    // the sweep must visit every region, or it checks less than it claims
+    expect(buck).toBeGreaterThan(50);
+    expect(boost).toBeGreaterThan(50);
+    expect(transition).toBeGreaterThan(0);
   });
 });
