@@ -3,9 +3,9 @@
  * the full per-component record of the corner built from the same buffers.
  */
 import type { Technology } from '../parts/technology.ts';
-import type { OperatingScalars, Topology } from '../topologies/topology.ts';
+import type { OperatingPoint, OperatingScalars, Topology } from '../topologies/topology.ts';
 import { type Design, ROLE_CAPACITOR, ROLE_DAMPING_CAPACITOR, ROLE_SENSE } from './design.ts';
-import { computeLosses, LOSS_KINDS } from './losses.ts';
+import { computeLosses, LOSS_KINDS, LOSS_SLOTS, LOSS_TOTAL } from './losses.ts';
 import { newScalars } from './size.ts';
 import type { ComponentStress, Corner, CornerResult } from './types.ts';
 import { WaveSet } from './wave.ts';
@@ -34,7 +34,7 @@ export function scratchFor(n: number): Scratch {
     s = {
       w: new WaveSet(n),
       per: new Float64Array(n),
-      kinds: new Float64Array(LOSS_KINDS.length),
+      kinds: new Float64Array(LOSS_SLOTS),
       vPk: new Float64Array(n),
       iPk: new Float64Array(n),
     };
@@ -56,30 +56,30 @@ export function resetScalars(s: OperatingScalars): void {
 }
 
 /**
- * The allocation-free inner loop: steady state and losses of a sized design at one operating point,
- * into caller-owned buffers. Returns the total loss (W). This is what the benchmark counts.
+ * The inner loop: steady state and losses of a sized design at one operating point, into caller-owned
+ * buffers; the total loss (W) lands in byKind[LOSS_TOTAL] (size byKind LOSS_SLOTS). This is what the
+ * benchmark counts.
  */
 export function operateWithLosses(
   topology: Topology,
   d: Design,
   tech: Technology,
-  vinV: number,
-  ioutA: number,
+  at: OperatingPoint,
   w: WaveSet,
   s: OperatingScalars,
   perPart: Float64Array,
   byKind: Float64Array,
-): number {
+): void {
   w.reset();
-  topology.operate(d, vinV, ioutA, w, s);
-  return computeLosses(d, tech, vinV, w, perPart, byKind);
+  topology.operate(d, at, w, s);
+  computeLosses(d, tech, at, w, perPart, byKind);
 }
 
 export function evaluateCorner(topology: Topology, d: Design, tech: Technology, c: Corner): CornerDetail {
   const { w, per, kinds } = scratchFor(d.parts.length);
   const s: OperatingScalars = newScalars();
-  const lossW = operateWithLosses(topology, d, tech, c.vinV, c.ioutA, w, s, per, kinds);
-  return cornerDetail(d, c, w, s, per, kinds, lossW);
+  operateWithLosses(topology, d, tech, c, w, s, per, kinds);
+  return cornerDetail(d, c, w, s, per, kinds, kinds[LOSS_TOTAL]);
 }
 
 /** The full record of one corner from the buffers operateWithLosses filled. */

@@ -17,6 +17,7 @@ import {
 import { type CornerFigures, cornerReasons, nominalFigures } from './corner-figures.ts';
 import { cornersFor } from './corners.ts';
 import { blankPart, type Design, ROLE_DIODE, ROLE_SWITCH, ROLE_SYNC, resetPart } from './design.ts';
+import { LOSS_TOTAL } from './losses.ts';
 import { summarizeParts } from './part-summary.ts';
 import { applyPins } from './pins.ts';
 import { newScalars, sizeDesign } from './size.ts';
@@ -235,7 +236,8 @@ function summarizeCandidate(
   let lossW = Number.NEGATIVE_INFINITY;
   for (const c of corners) {
     resetScalars(s);
-    const loss = operateWithLosses(topology, d, tech, c.vinV, c.ioutA, w, s, per, kinds);
+    operateWithLosses(topology, d, tech, c, w, s, per, kinds);
+    const loss = kinds[LOSS_TOTAL];
     if (details) details.push(cornerDetail(d, c, w, s, per, kinds, loss));
     const poutW = vout * c.ioutA;
     figures.push({

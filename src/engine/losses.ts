@@ -3,9 +3,11 @@
  * Writes per-component loss and per-kind totals into caller-owned arrays: no allocation.
  */
 
-import { igseLossDensity, igseTriangleLossDensity } from '../parts/inductor.ts';
+import * as inductor from '../parts/inductor.ts';
+import { igseInto, igseTriangleInto } from '../parts/inductor.ts';
 import { type MosfetLoss, switchLoss, syncLoss } from '../parts/mosfet.ts';
 import type { Technology } from '../parts/technology.ts';
+import type { OperatingPoint } from '../topologies/topology.ts';
 import type { Design } from './design.ts';
 import * as roles from './design.ts';
 import type { WaveSet } from './wave.ts';
@@ -24,6 +26,9 @@ export const K_GATE = 2;
 export const K_CORE = 3;
 export const K_CAP = 4;
 export const K_OTHER = 5;
+/** Slot after the kinds where computeLosses writes the total (W); size byKind arrays LOSS_SLOTS. */
+export const LOSS_TOTAL = LOSS_KINDS.length;
+export const LOSS_SLOTS = LOSS_KINDS.length + 1;
 
 // Imported constants copied into module constants, read once at load: when the modules are compiled
 // to CommonJS (tsx does) every read of an imported binding is a property getter, and the loop below
@@ -38,11 +43,18 @@ const ROLE_DAMPING_CAPACITOR = roles.ROLE_DAMPING_CAPACITOR;
 const ROLE_SENSE = roles.ROLE_SENSE;
 const ROLE_DAMPING_RESISTOR = roles.ROLE_DAMPING_RESISTOR;
 const ROLE_CONTROLLER = roles.ROLE_CONTROLLER;
+const IGSE_FSW = inductor.IGSE_FSW;
+const IGSE_DB = inductor.IGSE_DB;
+const IGSE_F0 = inductor.IGSE_F0;
+const IGSE_F1 = inductor.IGSE_F1;
+const IGSE_PV = inductor.IGSE_PV;
 const MAX_SEGMENTS = wave.MAX_SEGMENTS;
 const WAVE_STRIDE = wave.WAVE_STRIDE;
 
 const mos: MosfetLoss = { conductionW: 0, switchingW: 0, gateW: 0 };
 const fr = new Float64Array(MAX_SEGMENTS);
+/** Numbers in and out of the iGSE functions (see inductor.ts: no floating-point arguments, no boxing). */
+const igse = new Float64Array(inductor.IGSE_SLOTS);
 const db = new Float64Array(MAX_SEGMENTS);
 
 // Offsets inside one component's slot block, as documented in wave.ts: [n, f0..f3, a0..a3, b0..b3, w0..w3].
@@ -52,7 +64,8 @@ const B = 1 + 2 * MAX_SEGMENTS;
 const W = 1 + 3 * MAX_SEGMENTS;
 
 /**
- * Fill `perPart[k]` (W) and `byKind[kind]` (W); returns the total loss (W).
+ * Fill `perPart[k]` (W), `byKind[kind]` (W) and the total `byKind[LOSS_TOTAL]` (W). The total is not
+ * returned: a returned number is boxed on the heap whenever the call stays out of line (V8).
  * Conduction loss counts I²R and Vf·I terms, which the duty solution already includes as drops.
  *
  * This is the hot loop of every study, so it reads the flat wave buffer directly and takes each part's
@@ -62,11 +75,12 @@ const W = 1 + 3 * MAX_SEGMENTS;
 export function computeLosses(
   d: Design,
   tech: Technology,
-  vinV: number,
+  at: OperatingPoint,
   w: WaveSet,
   perPart: Float64Array,
   byKind: Float64Array,
-): number {
+): void {
+  const vinV = at.vinV;
   const fsw = d.params.fswHz;
   const parts = d.parts;
   const data = w.data;
@@ -181,7 +195,11 @@ export function computeLosses(
         const mean = p.dcrOhm * msm;
         cond += mean;
         other += cu - mean;
-        const c = p.coreM3 > 0 ? p.coreM3 * coreLossDensity(d, tech, data, k) : 0;
+        let c = 0;
+        if (p.coreM3 > 0) {
+          coreLossDensity(d, tech, data, k);
+          c = p.coreM3 * igse[IGSE_PV];
+        }
         core += c;
         loss = cu + c;
         break;
@@ -214,18 +232,18 @@ export function computeLosses(
   byKind[K_CORE] = core;
   byKind[K_CAP] = cap;
   byKind[K_OTHER] = other;
-  return total;
+  byKind[LOSS_TOTAL] = total;
 }
 
 /**
- * Core loss density (W/m³) of the magnetic part whose first winding is component k. The flux follows
- * the winding's linkage λ = L·i (separate) or L1·i1 + M·i2 (coupled, with the other winding k+1).
+ * Core loss density (W/m³, into igse[IGSE_PV]) of the magnetic part whose first winding is component k.
+ * The flux follows the winding's linkage λ = L·i (separate) or L1·i1 + M·i2 (coupled, with winding k+1).
  */
-function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: number): number {
+function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: number): void {
   const p = d.parts[k];
   const o = k * WAVE_STRIDE;
   const o2 = o + WAVE_STRIDE;
-  const n = data[o];
+  const n = data[o] | 0; // an integer (a Smi when passed on: no boxing)
   const coupled =
     p.roleCode === ROLE_COUPLED_INDUCTOR &&
     k + 1 < d.parts.length &&
@@ -243,8 +261,14 @@ function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: num
     const db1 = dl1 * p.bPerWb;
     const f0 = data[o + F];
     const f1 = data[o + F + 1];
-    if (db0 === -db1 && f0 > 0 && f1 > 0)
-      return igseTriangleLossDensity(tech.inductor.material, d.params.fswHz, Math.abs(db0), f0, f1);
+    if (db0 === -db1 && f0 > 0 && f1 > 0) {
+      igse[IGSE_FSW] = d.params.fswHz;
+      igse[IGSE_DB] = Math.abs(db0);
+      igse[IGSE_F0] = f0;
+      igse[IGSE_F1] = f1;
+      igseTriangleInto(tech.inductor.material, igse);
+      return;
+    }
   }
   let b = 0;
   let bMax = 0;
@@ -258,5 +282,7 @@ function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: num
     if (b > bMax) bMax = b;
     if (b < bMin) bMin = b;
   }
-  return igseLossDensity(tech.inductor.material, d.params.fswHz, bMax - bMin, n, fr, db);
+  igse[IGSE_FSW] = d.params.fswHz;
+  igse[IGSE_DB] = bMax - bMin;
+  igseInto(tech.inductor.material, n, fr, db, igse);
 }

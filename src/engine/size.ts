@@ -112,7 +112,7 @@ function envelope(topology: Topology, d: Design, corners: Corner[], w: WaveSet, 
   for (const c of corners) {
     if (!c.fullLoad || ci >= MAX_CORNERS) continue;
     w.reset();
-    topology.operate(d, c.vinV, c.ioutA, w, s);
+    topology.operate(d, c, w, s);
     e.cVin[ci] = c.vinV;
     for (let k = 0; k < n; k++) {
       w.stats(k, stats);

@@ -168,6 +168,78 @@ export class WaveSet {
     }
   }
 
+  /**
+   * A winding's triangle: from t.lo up to t.hi over the fraction t.duty, back to t.lo over the rest,
+   * each segment bowed by t.bowRise and t.bowFall. The numbers come in an object (a module-level
+   * Triangle the caller fills), not as arguments: V8 boxes every number passed to a call it leaves out
+   * of line, and this is the corner loop.
+   */
+  setTriangle(k: number, t: Triangle): void {
+    const o = k * WAVE_STRIDE;
+    const w = this.data;
+    w[o] = 2;
+    w[o + F] = t.duty;
+    w[o + F + 1] = 1 - t.duty;
+    w[o + A] = t.lo;
+    w[o + B] = t.hi;
+    w[o + A + 1] = t.hi;
+    w[o + B + 1] = t.lo;
+    w[o + W] = t.bowRise;
+    w[o + W + 1] = t.bowFall;
+  }
+
+  /**
+   * A discontinuous triangle: t.lo up to t.hi over f.d0, back to t.lo over f.d1, flat at t.lo over f.d2
+   * (straight segments; t.duty and the bows are not used).
+   */
+  setTriangleIdle(k: number, t: Triangle, f: Fractions3): void {
+    const o = k * WAVE_STRIDE;
+    const w = this.data;
+    w[o] = 3;
+    w[o + F] = f.d0;
+    w[o + F + 1] = f.d1;
+    w[o + F + 2] = f.d2;
+    w[o + A] = t.lo;
+    w[o + B] = t.hi;
+    w[o + A + 1] = t.hi;
+    w[o + B + 1] = t.lo;
+    w[o + A + 2] = t.lo;
+    w[o + B + 2] = t.lo;
+    w[o + W] = 0;
+    w[o + W + 1] = 0;
+    w[o + W + 2] = 0;
+  }
+
+  /** n segments from typed arrays: fractions f, start values a, end values b (straight segments). */
+  setSegments(k: number, n: number, f: Float64Array, a: Float64Array, b: Float64Array): void {
+    const o = k * WAVE_STRIDE;
+    const w = this.data;
+    w[o] = n;
+    for (let j = 0; j < n; j++) {
+      w[o + F + j] = f[j];
+      w[o + A + j] = a[j];
+      w[o + B + j] = b[j];
+      w[o + W + j] = 0;
+    }
+  }
+
+  /**
+   * Take component k's average out of it: what a capacitor carries of a current whose DC flows
+   * elsewhere (the same sum as average(), computed here so no number crosses a call).
+   */
+  removeMean(k: number): void {
+    const o = k * WAVE_STRIDE;
+    const d = this.data;
+    const n = d[o];
+    let mean = 0;
+    for (let j = 0; j < n; j++)
+      mean += d[o + F + j] * (0.5 * (d[o + A + j] + d[o + B + j]) + (2 / 3) * d[o + W + j]);
+    for (let j = 0; j < n; j++) {
+      d[o + A + j] -= mean;
+      d[o + B + j] -= mean;
+    }
+  }
+
   /** A constant current (DC through the whole period). */
   setDc(k: number, i: number): void {
     this.set2(k, 0.5, i, i, i, i);
@@ -313,9 +385,20 @@ export class WaveSet {
    * current crosses its average inside a segment.
    */
   chargeSwing(k: number): number {
+    this.chargeSwingInto(k, swingOut, 0);
+    return swingOut[0];
+  }
+
+  /** chargeSwing written to out[i] (the corner loop's form: a returned number would be boxed). */
+  chargeSwingInto(k: number, out: Float64Array, i: number): void {
     const o = k * WAVE_STRIDE;
     const d = this.data;
-    const mean = this.average(k);
+    // the average, as average() sums it (inlined: no number crosses a call here)
+    let mean = 0;
+    for (let j = 0; j < d[o]; j++)
+      mean += d[o + F + j] * (0.5 * (d[o + A + j] + d[o + B + j]) + (2 / 3) * d[o + W + j]);
+    // The charge of a segment up to fraction x of it (period units) is f·∫₀ˣ (a + c1·t + c2·t²) dt
+    // = f·x·(a + x·(c1/2 + x·c2/3)), written out below at each use.
     let q = 0;
     let qMax = 0;
     let qMin = 0;
@@ -332,7 +415,8 @@ export class WaveSet {
       if (Math.abs(c2) <= 1e-12 * (Math.abs(c1) + Math.abs(a))) {
         // straight (or negligibly bowed) segment: one crossing of the mean where a and b differ in sign
         if (a * b < 0) {
-          const qx = q + runningIntegral(f, a, c1, 0, a / (a - b));
+          const x = a / (a - b);
+          const qx = q + f * x * (a + x * (c1 / 2));
           if (qx > qMax) qMax = qx;
           if (qx < qMin) qMin = qx;
         }
@@ -345,28 +429,39 @@ export class WaveSet {
           const x1 = h / c2;
           const x2 = h !== 0 ? a / h : -1;
           if (x1 > 0 && x1 < 1) {
-            const qx = q + runningIntegral(f, a, c1, c2, x1);
+            const qx = q + f * x1 * (a + x1 * (c1 / 2 + (x1 * c2) / 3));
             if (qx > qMax) qMax = qx;
             if (qx < qMin) qMin = qx;
           }
           if (x2 > 0 && x2 < 1) {
-            const qx = q + runningIntegral(f, a, c1, c2, x2);
+            const qx = q + f * x2 * (a + x2 * (c1 / 2 + (x2 * c2) / 3));
             if (qx > qMax) qMax = qx;
             if (qx < qMin) qMin = qx;
           }
         }
       }
-      q += runningIntegral(f, a, c1, c2, 1);
+      q += f * (a + c1 / 2 + c2 / 3); // the whole segment (x = 1)
       if (q > qMax) qMax = q;
       if (q < qMin) qMin = q;
     }
-    return qMax - qMin;
+    out[i] = qMax - qMin;
   }
 }
 
-/** f·∫₀ˣ (a + c1·t + c2·t²) dt: charge of a segment up to fraction x of it (period units). */
-function runningIntegral(f: number, a: number, c1: number, c2: number, x: number): number {
-  return f * x * (a + x * (c1 / 2 + (x * c2) / 3));
+/** chargeSwing's result slot. */
+const swingOut = new Float64Array(1);
+
+/** A winding's current over one period, for WaveSet.setTriangle (A; fractions of the period). */
+export interface Triangle {
+  duty: number;
+  lo: number;
+  hi: number;
+  bowRise: number;
+  bowFall: number;
+}
+
+export function newTriangle(): Triangle {
+  return { duty: 0, lo: 0, hi: 0, bowRise: 0, bowFall: 0 };
 }
 
 export interface Fractions3 {

@@ -68,6 +68,23 @@ export function igseKi(m: CoreMaterial): number {
 }
 
 /**
+ * Inputs and result of the iGSE functions that take no floating-point arguments (igseInto,
+ * igseTriangleInto): the corner loop fills the inputs and reads the result here, because V8 boxes a
+ * number passed to (or returned from) a call it leaves out of line.
+ */
+export const IGSE_FSW = 0;
+/** Peak-to-peak flux swing (T); for the triangle, its rise (= fall). */
+export const IGSE_DB = 1;
+/** Triangle only: fractions of the period of the rise and the fall. */
+export const IGSE_F0 = 2;
+export const IGSE_F1 = 3;
+/** Result: loss density (W/m³). */
+export const IGSE_PV = 4;
+export const IGSE_SLOTS = 5;
+/** The io of the number-returning wrappers below (tests and cold paths). */
+const scratchIo = new Float64Array(IGSE_SLOTS);
+
+/**
  * Core loss density (W/m³) for piecewise-linear flux: segment fractions f, flux changes dB (T) per
  * segment, peak-to-peak swing dBpp (T), period T = 1/fsw.
  */
@@ -79,7 +96,27 @@ export function igseLossDensity(
   f: ArrayLike<number>,
   dB: ArrayLike<number>,
 ): number {
-  if (!(dBppT > 0) || m.k === 0) return 0;
+  const io = scratchIo;
+  io[IGSE_FSW] = fswHz;
+  io[IGSE_DB] = dBppT;
+  igseInto(m, n, f, dB, io);
+  return io[IGSE_PV];
+}
+
+/** igseLossDensity with fsw and the peak-to-peak swing read from io, the density written to io[IGSE_PV]. */
+export function igseInto(
+  m: CoreMaterial,
+  n: number,
+  f: ArrayLike<number>,
+  dB: ArrayLike<number>,
+  io: Float64Array,
+): void {
+  const fswHz = io[IGSE_FSW];
+  const dBppT = io[IGSE_DB];
+  if (!(dBppT > 0) || m.k === 0) {
+    io[IGSE_PV] = 0;
+    return;
+  }
   const ki = igseKi(m);
   // Σ fⱼ·|ΔBⱼ·fsw/fⱼ|^α = Σ exp(ln fⱼ + α·ln|ΔBⱼ·fsw/fⱼ|): one log and one exp per segment
   const a = m.alpha;
@@ -91,7 +128,7 @@ export function igseLossDensity(
     const lf = Math.log(fj);
     s += Math.exp(lf + a * (Math.log(x) - lf));
   }
-  return ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
+  io[IGSE_PV] = ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
 }
 
 // Per-call constants of the triangle form, kept from the previous call: a study evaluates one design
@@ -119,7 +156,25 @@ export function igseTriangleLossDensity(
   f0: number,
   f1: number,
 ): number {
-  if (!(dBT > 0) || m.k === 0) return 0;
+  const io = scratchIo;
+  io[IGSE_FSW] = fswHz;
+  io[IGSE_DB] = dBT;
+  io[IGSE_F0] = f0;
+  io[IGSE_F1] = f1;
+  igseTriangleInto(m, io);
+  return io[IGSE_PV];
+}
+
+/** igseTriangleLossDensity with its numbers in io (IGSE_FSW, IGSE_DB, IGSE_F0, IGSE_F1 → IGSE_PV). */
+export function igseTriangleInto(m: CoreMaterial, io: Float64Array): void {
+  const fswHz = io[IGSE_FSW];
+  const dBT = io[IGSE_DB];
+  const f0 = io[IGSE_F0];
+  const f1 = io[IGSE_F1];
+  if (!(dBT > 0) || m.k === 0) {
+    io[IGSE_PV] = 0;
+    return;
+  }
   const a = m.alpha;
   if (m !== triMaterial || fswHz !== tri[TRI_FSW]) {
     tri[TRI_KI_FSW] = igseKi(m) * Math.exp(a * Math.log(fswHz));
@@ -136,5 +191,5 @@ export function igseTriangleLossDensity(
     tri[TRI_F0] = f0;
     tri[TRI_F1] = f1;
   }
-  return tri[TRI_KI_FSW] * Math.exp(m.beta * Math.log(dBT)) * tri[TRI_SHAPE];
+  io[IGSE_PV] = tri[TRI_KI_FSW] * Math.exp(m.beta * Math.log(dBT)) * tri[TRI_SHAPE];
 }

@@ -15,7 +15,7 @@ export const boostThenBuck: Topology = {
   loops: 2,
   components: (rect) => cascadeComponents('boost-buck', rect),
   prepare: (d, spec) => prepareBus('boost-buck', d, spec),
-  operate: (d, vin, iout, w, s) => operateCascade(d, 'boost-buck', vin, iout, w, s),
+  operate: (d, at, w, s) => operateCascade(d, 'boost-buck', at, w, s),
   cautions: (d, spec) => cascadeCautions(d, spec, 'boost-buck'),
   reasons: (d, spec) => busReasons('boost-buck', d, spec),
 };

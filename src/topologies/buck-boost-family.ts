@@ -26,20 +26,76 @@
  * mean ∫i²/∫i is ⅔·Ipk, so these constant voltages carry the interval's I²R energy exactly (derived here).
  */
 
-/** Result of a CCM duty solution. */
+/**
+ * A CCM duty problem and its solution in one object: the caller fills the inputs (see solveCcmDuty),
+ * the solver writes duty and converged. Numbers travel in objects, not as arguments: V8 boxes a number
+ * passed to a call it leaves out of line, and this is the corner loop.
+ */
 export interface CcmDuty {
+  vinV: number;
+  voV: number;
+  vfV: number;
+  rrOhm: number;
+  rqOhm: number;
+  r1Ohm: number;
+  r2Ohm: number;
+  rBothOhm: number;
+  ioutA: number;
   duty: number;
   converged: boolean;
 }
 
-/** Result of a DCM solution: switch duty, rectifier interval, peak of the summed current (A). */
+export function newCcmDuty(): CcmDuty {
+  return {
+    vinV: 0,
+    voV: 0,
+    vfV: 0,
+    rrOhm: 0,
+    rqOhm: 0,
+    r1Ohm: 0,
+    r2Ohm: 0,
+    rBothOhm: 0,
+    ioutA: 0,
+    duty: 0,
+    converged: false,
+  };
+}
+
+/** A DCM problem (inputs: see solveDcmDuty) and its solution: switch duty, rectifier interval, peak (A). */
 export interface DcmDuty {
+  vinV: number;
+  voV: number;
+  vfV: number;
+  ioutA: number;
+  leH: number;
+  fswHz: number;
+  rOnOhm: number;
+  rOffOhm: number;
   duty: number;
   duty2: number;
   peakA: number;
   vOnV: number;
   vOffV: number;
   converged: boolean;
+}
+
+export function newDcmDuty(): DcmDuty {
+  return {
+    vinV: 0,
+    voV: 0,
+    vfV: 0,
+    ioutA: 0,
+    leH: 0,
+    fswHz: 0,
+    rOnOhm: 0,
+    rOffOhm: 0,
+    duty: 0,
+    duty2: 0,
+    peakA: 0,
+    vOnV: 0,
+    vOffV: 0,
+    converged: false,
+  };
 }
 
 /** Iteration cap and tolerance of the DCM fixed point (a handful of steps suffice at realistic drops). */
@@ -49,21 +105,19 @@ const DUTY_TOLERANCE = 1e-13;
 const DUTY_CEILING = 0.999;
 
 /**
- * CCM duty of the family with drops (see the header): voV = |Vout| (V), vfV = diode knee (V, 0 for sync),
- * rrOhm, rqOhm, r1Ohm, r2Ohm, rBothOhm as described there, ioutA the load current (A).
+ * CCM duty of the family with drops (see the header), inputs in `out`: voV = |Vout| (V), vfV = diode
+ * knee (V, 0 for sync), rrOhm, rqOhm, r1Ohm, r2Ohm, rBothOhm as described there, ioutA the load current (A).
  */
-export function solveCcmDuty(
-  vinV: number,
-  voV: number,
-  vfV: number,
-  rrOhm: number,
-  rqOhm: number,
-  r1Ohm: number,
-  r2Ohm: number,
-  rBothOhm: number,
-  ioutA: number,
-  out: CcmDuty,
-): void {
+export function solveCcmDuty(out: CcmDuty): void {
+  const vinV = out.vinV;
+  const voV = out.voV;
+  const vfV = out.vfV;
+  const rrOhm = out.rrOhm;
+  const rqOhm = out.rqOhm;
+  const r1Ohm = out.r1Ohm;
+  const r2Ohm = out.r2Ohm;
+  const rBothOhm = out.rBothOhm;
+  const ioutA = out.ioutA;
   // With u = 1/(1−D): Isw = Iout·u, IL1 = Iout·(u−1), D/(1−D) = u−1, and the balance in the header
   // becomes a quadratic B·u² − q·u + c = 0 with
   //   A = Vin + Iout·R1,  B = Iout·(R1 + Rq + Rb),  C = Vout + Vf + Iout·R2,  E = Iout·(rr + Rb),
@@ -89,20 +143,18 @@ export function solveCcmDuty(
 }
 
 /**
- * DCM solution with a diode rectifier (see the header): leH = effective inductance Le (H), rOnOhm and
- * rOffOhm the resistances the summed current sees in the on and off intervals (Ω).
+ * DCM solution with a diode rectifier (see the header), inputs in `out`: leH = effective inductance Le
+ * (H), rOnOhm and rOffOhm the resistances the summed current sees in the on and off intervals (Ω).
  */
-export function solveDcmDuty(
-  vinV: number,
-  voV: number,
-  vfV: number,
-  ioutA: number,
-  leH: number,
-  fswHz: number,
-  rOnOhm: number,
-  rOffOhm: number,
-  out: DcmDuty,
-): void {
+export function solveDcmDuty(out: DcmDuty): void {
+  const vinV = out.vinV;
+  const voV = out.voV;
+  const vfV = out.vfV;
+  const ioutA = out.ioutA;
+  const leH = out.leH;
+  const fswHz = out.fswHz;
+  const rOnOhm = out.rOnOhm;
+  const rOffOhm = out.rOffOhm;
   const t = 1 / fswHz;
   let pk = Math.sqrt((2 * ioutA * (voV + vfV) * t) / leH);
   out.converged = false;

@@ -15,7 +15,7 @@ export const buckThenBoost: Topology = {
   loops: 2,
   components: (rect) => cascadeComponents('buck-boost', rect),
   prepare: (d, spec) => prepareBus('buck-boost', d, spec),
-  operate: (d, vin, iout, w, s) => operateCascade(d, 'buck-boost', vin, iout, w, s),
+  operate: (d, at, w, s) => operateCascade(d, 'buck-boost', at, w, s),
   cautions: (d, spec) => cascadeCautions(d, spec, 'buck-boost'),
   reasons: (d, spec) => busReasons('buck-boost', d, spec),
 };

@@ -36,7 +36,7 @@ export function cascadeCautions(d: Design, spec: RailSpec, order: CascadeOrder):
   const w = new WaveSet(d.parts.length);
   const s1 = newStageState();
   const s2 = newStageState();
-  solveCascade(d, order, spec.input.nomV, spec.load.maxA, w, s1, s2);
+  solveCascade(d, order, { vinV: spec.input.nomV, ioutA: spec.load.maxA }, w, s1, s2);
 
   // RHP zero of the boost stage: ωz = D′²·R/L with R the boost's own load (Erickson & Maksimović Table 8.2)
   if (boostFirst) {

@@ -22,7 +22,7 @@ import type { CascadeOrder } from './cascade-bus.ts';
 import { newStageState, type StageSlots, type StageState } from './stage.ts';
 import { operateBoostStage } from './stage-boost.ts';
 import { operateBuckStage } from './stage-buck.ts';
-import type { ComponentSpec, OperatingScalars } from './topology.ts';
+import type { ComponentSpec, OperatingPoint, OperatingScalars } from './topology.ts';
 import { sumWaves } from './wave-sum.ts';
 
 /** Fixed component slots (same order as cascadeComponents). */
@@ -127,23 +127,36 @@ const st2 = newStageState();
 export function solveCascade(
   d: Design,
   order: CascadeOrder,
-  vin: number,
-  iout: number,
+  at: OperatingPoint,
   w: WaveSet,
   s1: StageState,
   s2: StageState,
 ): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const vout = Math.abs(d.voutV);
   const vbus = d.busV;
   if (order === 'boost-buck') {
-    operateBuckStage(d, STAGE2, vbus, vout, iout, w, s2);
-    operateBoostStage(d, STAGE1, vin, vbus, s2.iinA, w, s1);
+    s2.viV = vbus;
+    s2.voV = vout;
+    s2.ioA = iout;
+    operateBuckStage(d, STAGE2, w, s2);
+    s1.viV = vin;
+    s1.voV = vbus;
+    s1.ioA = s2.iinA;
+    operateBoostStage(d, STAGE1, w, s1);
     sumWaves(w, CIN, L1, -1, -1, 0, true); // input: the boost inductor current
     sumWaves(w, CBUS, RECT1, 1, Q3, -1, true); // boost rectifier in, buck switch out
     sumWaves(w, COUT, L2, 1, -1, 0, true); // output: the buck inductor current
   } else {
-    operateBoostStage(d, STAGE2, vbus, vout, iout, w, s2);
-    operateBuckStage(d, STAGE1, vin, vbus, s2.iinA, w, s1);
+    s2.viV = vbus;
+    s2.voV = vout;
+    s2.ioA = iout;
+    operateBoostStage(d, STAGE2, w, s2);
+    s1.viV = vin;
+    s1.voV = vbus;
+    s1.ioA = s2.iinA;
+    operateBuckStage(d, STAGE1, w, s1);
     sumWaves(w, CIN, Q1, -1, -1, 0, true); // input: the buck switch current
     sumWaves(w, CBUS, L1, 1, L2, -1, true); // buck inductor in, boost inductor out
     sumWaves(w, COUT, RECT2, 1, -1, 0, true); // output: the boost rectifier current
@@ -166,12 +179,11 @@ export function solveCascade(
 export function operateCascade(
   d: Design,
   order: CascadeOrder,
-  vin: number,
-  iout: number,
+  at: OperatingPoint,
   w: WaveSet,
   s: OperatingScalars,
 ): void {
-  solveCascade(d, order, vin, iout, w, st1, st2);
+  solveCascade(d, order, at, w, st1, st2);
   s.duty = st1.duty;
   s.duty2 = st2.duty;
   s.mode = st1.mode === 'dcm' || st2.mode === 'dcm' ? 'dcm' : 'ccm';

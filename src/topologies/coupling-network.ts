@@ -23,10 +23,10 @@
  * left out, small at the light load where DCM occurs).
  */
 import type { Design } from '../engine/design.ts';
-import { type Fractions3, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
+import { type Fractions3, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import {
-  type CcmDuty,
-  type DcmDuty,
+  newCcmDuty,
+  newDcmDuty,
   parallelInductance,
   solveCcmDuty,
   solveDcmDuty,
@@ -43,8 +43,20 @@ export const CIN = 6;
 export const COUT = 7;
 export const U1 = 8;
 
-/** Everything the Ćuk and Zeta need from one operating point (SI units). */
+/**
+ * Everything the Ćuk and Zeta need from one operating point (SI units). The inputs travel in it too
+ * (vinV, ioutA; the switched voltages for writeCommonWaves): the corner loop passes no numbers as
+ * arguments, which V8 boxes when a call stays out of line.
+ */
 export interface CouplingPoint {
+  vinV: number;
+  ioutA: number;
+  /** Voltages the switch and the rectifier switch (V), set before writeCommonWaves. */
+  vQ1SwV: number;
+  vRectSwV: number;
+  /** Averages of iL1 and of the switch current (A), written by writeCommonWaves. */
+  il1AvgA: number;
+  iswAvgA: number;
   mode: 'ccm' | 'dcm';
   duty: number;
   converged: boolean;
@@ -69,6 +81,12 @@ export interface CouplingPoint {
 
 export function newCouplingPoint(): CouplingPoint {
   return {
+    vinV: 0,
+    ioutA: 0,
+    vQ1SwV: 0,
+    vRectSwV: 0,
+    il1AvgA: 0,
+    iswAvgA: 0,
     mode: 'ccm',
     duty: 0,
     converged: false,
@@ -88,11 +106,14 @@ export function newCouplingPoint(): CouplingPoint {
   };
 }
 
-const ccm: CcmDuty = { duty: 0, converged: false };
-const dcm: DcmDuty = { duty: 0, duty2: 0, peakA: 0, vOnV: 0, vOffV: 0, converged: false };
+const ccm = newCcmDuty();
+const dcm = newDcmDuty();
+const tri = newTriangle();
 
-/** Solve the operating point (duty, currents, ripples, mode) of a Ćuk or Zeta stage into `pt`. */
-export function solveCouplingNetwork(d: Design, vin: number, iout: number, pt: CouplingPoint): void {
+/** Solve the operating point (duty, currents, ripples, mode) of a Ćuk or Zeta stage at pt.vinV, pt.ioutA. */
+export function solveCouplingNetwork(d: Design, pt: CouplingPoint): void {
+  const vin = pt.vinV;
+  const iout = pt.ioutA;
   const p = d.parts;
   const vo = Math.abs(d.voutV);
   const fsw = d.params.fswHz;
@@ -106,7 +127,16 @@ export function solveCouplingNetwork(d: Design, vin: number, iout: number, pt: C
   const r1 = p[L1].dcrOhm;
   const r2 = p[L2].dcrOhm;
 
-  solveCcmDuty(vin, vo, vf, rr, rq, r1, r2, 0, iout, ccm);
+  ccm.vinV = vin;
+  ccm.voV = vo;
+  ccm.vfV = vf;
+  ccm.rrOhm = rr;
+  ccm.rqOhm = rq;
+  ccm.r1Ohm = r1;
+  ccm.r2Ohm = r2;
+  ccm.rBothOhm = 0;
+  ccm.ioutA = iout;
+  solveCcmDuty(ccm);
   const D = ccm.duty;
   pt.dutyCcm = D;
   pt.il2A = iout;
@@ -126,7 +156,15 @@ export function solveCouplingNetwork(d: Design, vin: number, iout: number, pt: C
   if (sync || pt.iswA - 0.5 * (pt.di1A + pt.di2A) >= 0) return;
   const le = parallelInductance(l1, l2);
   const rl = r1 * (le / l1) ** 2 + r2 * (le / l2) ** 2;
-  solveDcmDuty(vin, vo, vf, iout, le, fsw, rq + rl, rr + rl, dcm);
+  dcm.vinV = vin;
+  dcm.voV = vo;
+  dcm.vfV = vf;
+  dcm.ioutA = iout;
+  dcm.leH = le;
+  dcm.fswHz = fsw;
+  dcm.rOnOhm = rq + rl;
+  dcm.rOffOhm = rr + rl;
+  solveDcmDuty(dcm);
   if (dcm.duty + dcm.duty2 >= 1) return; // at the boundary: keep the CCM solution
   pt.mode = 'dcm';
   pt.duty = dcm.duty;
@@ -146,48 +184,48 @@ export function solveCouplingNetwork(d: Design, vin: number, iout: number, pt: C
 /**
  * Waveforms common to the Ćuk and Zeta: L1 (positive into the switch node side), L2 (positive towards the
  * load), the switch, its sense resistor, the rectifier, and the output capacitor, which takes L2's ripple
- * (L2 feeds the output continuously), with the switching edges (vQ1SwV, vRectSwV: voltages switched, V).
- * Returns the average of iL1 (A).
+ * (L2 feeds the output continuously), with the switching edges (pt.vQ1SwV, pt.vRectSwV: voltages
+ * switched, V). Writes the averages of iL1 and of the switch current (A) to pt.il1AvgA, pt.iswAvgA.
  */
-export function writeCommonWaves(
-  pt: CouplingPoint,
-  iout: number,
-  vQ1SwV: number,
-  vRectSwV: number,
-  w: WaveSet,
-): number {
-  let il1Avg: number;
+export function writeCommonWaves(pt: CouplingPoint, w: WaveSet): void {
   if (pt.mode === 'ccm') {
-    const D = pt.duty;
     const a1 = pt.il1A - pt.di1A / 2;
     const b1 = pt.il1A + pt.di1A / 2;
     const a2 = pt.il2A - pt.di2A / 2;
     const b2 = pt.il2A + pt.di2A / 2;
-    w.set2(L1, D, a1, b1, b1, a1);
-    w.set2(L2, D, a2, b2, b2, a2);
+    tri.duty = pt.duty;
+    tri.lo = a1;
+    tri.hi = b1;
+    w.setTriangle(L1, tri);
+    tri.lo = a2;
+    tri.hi = b2;
+    w.setTriangle(L2, tri);
     w.iOnA[Q1] = a1 + a2;
     w.iOffA[Q1] = b1 + b2;
     w.iOnA[RECT] = a1 + a2;
     w.iOffA[RECT] = b1 + b2;
-    il1Avg = pt.il1A;
+    pt.il1AvgA = pt.il1A;
+    pt.iswAvgA = pt.duty * (pt.il1A + pt.il2A); // both windings' triangles, centred on their averages
   } else {
     const f = pt.f;
     const i0 = pt.i0A;
-    const h1 = i0 + pt.di1A;
-    const h2 = -i0 + pt.di2A;
-    w.set3(L1, f, i0, h1, h1, i0, i0, i0);
-    w.set3(L2, f, -i0, h2, h2, -i0, -i0, -i0);
+    tri.lo = i0;
+    tri.hi = i0 + pt.di1A;
+    w.setTriangleIdle(L1, tri, f);
+    tri.lo = -i0;
+    tri.hi = -i0 + pt.di2A;
+    w.setTriangleIdle(L2, tri, f);
     w.iOffA[Q1] = pt.peakA; // on at zero current; the rectifier turns off at zero current
-    il1Avg = i0 + 0.5 * pt.di1A * (f.d0 + f.d1);
+    pt.il1AvgA = i0 + 0.5 * pt.di1A * (f.d0 + f.d1);
+    pt.iswAvgA = 0.5 * pt.peakA * f.d0; // the summed current ramps from 0 to the peak while Q1 is on
   }
-  w.vSwV[Q1] = Math.abs(vQ1SwV);
-  w.vSwV[RECT] = Math.abs(vRectSwV);
+  w.vSwV[Q1] = Math.abs(pt.vQ1SwV);
+  w.vSwV[RECT] = Math.abs(pt.vRectSwV);
   // the switch (and its sense resistor) carries both inductor currents while on, the rectifier both
   // while off; Cout takes L2's ripple (CCM and DCM alike)
   w.combine(Q1, L1, 1, SEGMENT_0, L2, 1, SEGMENT_0);
   w.copy(RS, Q1);
   w.combine(RECT, L1, 1, SEGMENT_1, L2, 1, SEGMENT_1);
   w.copy(COUT, L2);
-  w.shift(COUT, -iout);
-  return il1Avg;
+  w.shift(COUT, -pt.ioutA);
 }

@@ -24,7 +24,7 @@ import type { RailSpec } from '../spec/rail-spec.ts';
 import { couplingResonanceCaution, couplingRhpZeroCaution } from './coupling-cautions.ts';
 import * as net from './coupling-network.ts';
 import { newCouplingPoint, solveCouplingNetwork, writeCommonWaves } from './coupling-network.ts';
-import type { ComponentSpec, OperatingScalars, Topology } from './topology.ts';
+import type { ComponentSpec, OperatingPoint, OperatingScalars, Topology } from './topology.ts';
 
 // Slot numbers read once (an imported binding compiled to CommonJS is a getter on every read).
 const { CIN, COUT, CS, L1, L2, Q1, RECT, RS, U1 } = net;
@@ -82,17 +82,24 @@ function components(rect: RectifierKind): ComponentSpec[] {
 
 const pt = newCouplingPoint();
 
-function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingScalars): void {
+function operate(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const p = d.parts;
   const vo = Math.abs(d.voutV);
   const rq = p[Q1].ronOhm + p[RS].value;
-  solveCouplingNetwork(d, vin, iout, pt);
+  pt.vinV = vin;
+  pt.ioutA = iout;
+  solveCouplingNetwork(d, pt);
   const dc = pt.dutyCcm;
   const vcs = (vo + p[L2].dcrOhm * pt.il2A + (1 - dc) * pt.vdV + dc * rq * pt.iswA) / dc;
   const vQ1 = vcs + pt.vdV;
   const vRect = vcs - rq * pt.iswA;
 
-  const iin = writeCommonWaves(pt, iout, vQ1, vRect, w);
+  pt.vQ1SwV = vQ1;
+  pt.vRectSwV = vRect;
+  writeCommonWaves(pt, w);
+  const iin = pt.il1AvgA;
   s.duty = pt.duty;
   s.duty2 = 0;
   s.mode = pt.mode;

@@ -27,9 +27,9 @@ import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatSi } from '../units/format.ts';
 import * as parts from './four-switch-parts.ts';
 import { fourSwitchComponents, newDrops, readDrops } from './four-switch-parts.ts';
-import { newPoint, solveFourSwitch, transitionBandV } from './four-switch-solve.ts';
+import { type FourSwitchPoint, newPoint, solveFourSwitch, transitionBandV } from './four-switch-solve.ts';
 import { rhpZeroHz } from './rhp-zero.ts';
-import type { OperatingScalars, Topology } from './topology.ts';
+import type { OperatingPoint, OperatingScalars, Topology } from './topology.ts';
 
 // Slot numbers read once: compiled to CommonJS (as tsx runs the engine) every read of an imported
 // binding is a property getter, and operate() reads these dozens of times per corner.
@@ -58,32 +58,38 @@ const scratchF = new Float64Array(3);
 const scratchA = new Float64Array(3);
 const scratchB = new Float64Array(3);
 
-function setSegments(
-  k0: number,
-  f0: number,
-  a0: number,
-  b0: number,
-  k1: number,
-  f1: number,
-  a1: number,
-  b1: number,
-  k2: number,
-  f2: number,
-  a2: number,
-  b2: number,
-): void {
-  segKind[0] = k0;
-  segKind[1] = k1;
-  segKind[2] = k2;
-  segF[0] = Math.max(0, f0);
-  segF[1] = Math.max(0, f1);
-  segF[2] = Math.max(0, f2);
-  segA[0] = a0;
-  segA[1] = a1;
-  segA[2] = a2;
-  segB[0] = b0;
-  segB[1] = b1;
-  segB[2] = b2;
+/** The three CCM intervals of the solved point (A, B, C with iL at their edges). */
+function setCcmSegments(p: FourSwitchPoint): void {
+  segKind[0] = A;
+  segKind[1] = B;
+  segKind[2] = C;
+  segF[0] = Math.max(0, p.d3);
+  segF[1] = Math.max(0, p.d1 - p.d3);
+  segF[2] = Math.max(0, 1 - p.d1);
+  segA[0] = p.i0A;
+  segB[0] = p.i1A;
+  segA[1] = p.i1A;
+  segB[1] = p.i2A;
+  segA[2] = p.i2A;
+  segB[2] = p.i0A;
+}
+
+/** Light load: iL rises from 0 to dcm.peakA in interval kind `rise`, falls back in `fall`, then idles. */
+const dcm = { on: 0, off: 0, peakA: 0 };
+
+function setDcmSegments(rise: number, fall: number): void {
+  segKind[0] = rise;
+  segKind[1] = fall;
+  segKind[2] = IDLE;
+  segF[0] = Math.max(0, dcm.on);
+  segF[1] = Math.max(0, dcm.off);
+  segF[2] = Math.max(0, 1 - dcm.on - dcm.off);
+  segA[0] = 0;
+  segB[0] = dcm.peakA;
+  segA[1] = dcm.peakA;
+  segB[1] = 0;
+  segA[2] = 0;
+  segB[2] = 0;
 }
 
 /**
@@ -127,18 +133,12 @@ function segmentsOf(kinds: number): number {
   return m;
 }
 
-/** Average of iL over the intervals where the mask conducts (A). */
-function branchAverage(mask: number): number {
-  let s = 0;
-  for (let j = 0; j < 3; j++) if ((mask >> segKind[j]) & 1) s += segF[j] * 0.5 * (segA[j] + segB[j]);
-  return s;
-}
-
 /**
  * Switching edges of a branch: it switches when it conducts for part of the period only; it turns on at
- * the start of its first conducting interval and off at the end of its last (the masks are contiguous).
+ * the start of its first conducting interval and off at the end of its last (the masks are contiguous),
+ * switching the voltage it blocks (its vPeakV, written before).
  */
-function writeEdges(w: WaveSet, k: number, mask: number, vSwV: number): void {
+function writeEdges(w: WaveSet, k: number, mask: number): void {
   let frac = 0;
   let first = -1;
   let last = -1;
@@ -151,22 +151,21 @@ function writeEdges(w: WaveSet, k: number, mask: number, vSwV: number): void {
   const switches = first >= 0 && frac < 1 - 1e-12;
   w.iOnA[k] = switches ? segA[first] : 0;
   w.iOffA[k] = switches ? segB[last] : 0;
-  w.vSwV[k] = switches ? Math.abs(vSwV) : 0;
+  w.vSwV[k] = switches ? w.vPeakV[k] : 0;
 }
 
-export function operateFourSwitch(
-  d: Design,
-  vin: number,
-  iout: number,
-  w: WaveSet,
-  s: OperatingScalars,
-): void {
+export function operateFourSwitch(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const vout = Math.abs(d.voutV);
   const tOverL = 1 / (d.params.fswHz * d.parts[L1].value);
   readDrops(d, drops);
-  solveFourSwitch(d, drops, vin, iout, tOverL, pt);
+  pt.vinV = vin;
+  pt.ioutA = iout;
+  pt.tOverL = tOverL;
+  solveFourSwitch(d, drops, pt);
   const { d1, d3, i0A, i1A, i2A } = pt;
-  setSegments(A, d3, i0A, i1A, B, d1 - d3, i1A, i2A, C, 1 - d1, i2A, i0A);
+  setCcmSegments(pt);
   let mode: OperatingScalars['mode'] = pt.region;
   let duty = pt.region === 'buck' ? d1 : d3;
   let duty2 = pt.region === 'buck-boost' ? d1 : 0;
@@ -192,21 +191,30 @@ export function operateFourSwitch(
       dOn = Math.sqrt((2 * iout) / (vRise * tOverL * (1 + vRise / vFall)));
       ip = vRise * dOn * tOverL;
       dOff = ip / (vFall * tOverL);
-      setSegments(B, dOn, 0, ip, C, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      dcm.on = dOn;
+      dcm.off = dOff;
+      dcm.peakA = ip;
+      setDcmSegments(B, C);
       duty = dOn;
       duty2 = 0;
     } else if (pt.region === 'boost' && vo > vin) {
       dOn = Math.sqrt((2 * iout * (vo - vin)) / tOverL) / vin;
       ip = vin * dOn * tOverL;
       dOff = ip / ((vo - vin) * tOverL);
-      setSegments(A, dOn, 0, ip, B, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      dcm.on = dOn;
+      dcm.off = dOff;
+      dcm.peakA = ip;
+      setDcmSegments(A, B);
       duty = dOn;
       duty2 = 0;
     } else {
       dOn = Math.sqrt((2 * iout * vFall) / tOverL) / vin;
       ip = vin * dOn * tOverL;
       dOff = ip / (vFall * tOverL);
-      setSegments(A, dOn, 0, ip, C, dOff, ip, 0, IDLE, 1 - dOn - dOff, 0, 0);
+      dcm.on = dOn;
+      dcm.off = dOff;
+      dcm.peakA = ip;
+      setDcmSegments(A, C);
       duty = dOn;
       duty2 = dOn;
     }
@@ -215,7 +223,7 @@ export function operateFourSwitch(
       vL = Math.max(vin, vFall);
     } else {
       // the light-load solution would not leave an idle interval: keep the CCM one
-      setSegments(A, d3, i0A, i1A, B, d1 - d3, i1A, i2A, C, 1 - d1, i2A, i0A);
+      setCcmSegments(pt);
       duty = pt.region === 'buck' ? d1 : d3;
       duty2 = pt.region === 'buck-boost' ? d1 : 0;
     }
@@ -225,7 +233,9 @@ export function operateFourSwitch(
   s.mode = mode;
   s.converged = pt.converged;
 
-  const iin = branchAverage(ON_Q1);
+  // the input current: iL averaged over the intervals where Q1 conducts
+  let iin = 0;
+  for (let j = 0; j < 3; j++) if ((ON_Q1 >> segKind[j]) & 1) iin += segF[j] * 0.5 * (segA[j] + segB[j]);
   s.iinA = iin;
   compactSegments();
   // every branch is iL where its switch conducts: the inductor written once, the rest masked from it
@@ -235,9 +245,10 @@ export function operateFourSwitch(
   w.combine(R2, L1, 1, segmentsOf(ON_R2), L1, 0, 0);
   w.combine(Q3, L1, 1, segmentsOf(ON_Q3), L1, 0, 0);
   w.combine(R4, L1, 1, segmentsOf(ON_R4), L1, 0, 0);
-  // Cin supplies what the input does not while Q1 conducts; Cout takes Q4/D2's current minus the load
+  // Cin supplies the AC of Q1's current (the input carries its average); Cout takes Q4/D2's current
+  // minus the load
   w.combine(CIN, L1, -1, segmentsOf(ON_Q1), L1, 0, 0);
-  w.shift(CIN, iin);
+  w.removeMean(CIN);
   w.copy(COUT, R4);
   w.shift(COUT, -iout);
   w.setDc(U1, 0);
@@ -247,14 +258,14 @@ export function operateFourSwitch(
   const il = Math.abs(pt.ilA);
   const vQ1 = vin + drops.vf1V + drops.r2Ohm * il;
   const vQ3 = vout + drops.vf2V + drops.r4Ohm * il;
-  writeEdges(w, Q1, ON_Q1, vQ1);
-  writeEdges(w, R2, ON_R2, vin);
-  writeEdges(w, Q3, ON_Q3, vQ3);
-  writeEdges(w, R4, ON_R4, vout);
   w.vPeakV[Q1] = Math.abs(vQ1);
   w.vPeakV[R2] = Math.abs(vin);
   w.vPeakV[Q3] = Math.abs(vQ3);
   w.vPeakV[R4] = Math.abs(vout);
+  writeEdges(w, Q1, ON_Q1);
+  writeEdges(w, R2, ON_R2);
+  writeEdges(w, Q3, ON_Q3);
+  writeEdges(w, R4, ON_R4);
   w.vPeakV[L1] = Math.abs(vL);
   w.vPeakV[CIN] = Math.abs(vin);
   w.vDcV[CIN] = vin;
@@ -293,7 +304,10 @@ export function fourSwitchCautions(d: Design, spec: RailSpec): Caution[] {
   const r = newDrops();
   readDrops(d, r);
   const p = newPoint();
-  solveFourSwitch(d, r, minV, iout, 1 / (d.params.fswHz * l), p);
+  p.vinV = minV;
+  p.ioutA = iout;
+  p.tOverL = 1 / (d.params.fswHz * l);
+  solveFourSwitch(d, r, p);
   if (p.region !== 'buck' && p.d3 > 0 && l > 0) {
     const fz = rhpZeroHz(rLoad, p.d3, l, 'boost');
     out.push({

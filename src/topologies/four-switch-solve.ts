@@ -47,8 +47,16 @@ import { type FourSwitchDrops, L1, newDrops, readDrops } from './four-switch-par
 
 export type FourSwitchRegion = 'buck' | 'boost' | 'buck-boost';
 
-/** CCM steady state: duties, inductor currents at the interval edges (A) and interval voltages (V). */
+/**
+ * One operating point: its inputs, filled by the caller (input voltage, load current, and the period
+ * over the inductance T/L in s/H; numbers travel in this object rather than as arguments, which V8 boxes
+ * when a call stays out of line), and the CCM steady state: duties, inductor currents at the interval
+ * edges (A) and interval voltages (V).
+ */
 export interface FourSwitchPoint {
+  vinV: number;
+  ioutA: number;
+  tOverL: number;
   region: FourSwitchRegion;
   d1: number;
   d3: number;
@@ -65,6 +73,9 @@ export interface FourSwitchPoint {
 
 export function newPoint(): FourSwitchPoint {
   return {
+    vinV: 0,
+    ioutA: 0,
+    tOverL: 0,
     region: 'buck',
     d1: 0,
     d3: 0,
@@ -98,24 +109,25 @@ const BEYOND = 2;
 /** Whether the last solveWithLegHeld wrote `out` at least once (it returns before that on a bad start). */
 let wroteOut = false;
 
+/** The held leg's duty and the region test's limit for solveWithLegHeld (numbers in an array, not arguments). */
+const leg = new Float64Array(2);
+const LEG_HELD = 0;
+const LEG_LIMIT = 1;
+
 /**
- * Solve the three-interval averaged model with one leg's duty held: `fix = 'd3'` holds the boost leg
- * (solve D1), `fix = 'd1'` holds the buck leg (solve D3). kPerH = T (s) per henry of L1, i.e. T/L (s/H).
- * `limit` (NaN: none) is the region test's bound on the free duty — D1 ≤ limit, or D3 ≥ limit — and
- * lets the iteration stop early with BEYOND when the fixed point clearly misses it. Returns FAILED
- * when the duty leaves [0, 1] or the iteration runs away (drops too large).
+ * Solve the three-interval averaged model with one leg's duty held at leg[LEG_HELD]: `fix = 'd3'` holds
+ * the boost leg (solve D1), `fix = 'd1'` holds the buck leg (solve D3); the operating point (Vin, Iout,
+ * T/L) comes from `out`. leg[LEG_LIMIT] (NaN: none) is the region test's bound on the free duty —
+ * D1 ≤ limit, or D3 ≥ limit — and lets the iteration stop early with BEYOND when the fixed point clearly
+ * misses it. Returns FAILED when the duty leaves [0, 1] or the iteration runs away (drops too large).
  */
-function solveWithLegHeld(
-  vin: number,
-  vout: number,
-  iout: number,
-  tOverL: number,
-  r: FourSwitchDrops,
-  fix: 'd1' | 'd3',
-  held: number,
-  limit: number,
-  out: FourSwitchPoint,
-): number {
+function solveWithLegHeld(d: Design, r: FourSwitchDrops, fix: 'd1' | 'd3', out: FourSwitchPoint): number {
+  const vin = out.vinV;
+  const vout = Math.abs(d.voutV);
+  const iout = out.ioutA;
+  const tOverL = out.tOverL;
+  const held = leg[LEG_HELD];
+  const limit = leg[LEG_LIMIT];
   const rA = r.rq1Ohm + r.rlOhm + r.rq3Ohm;
   const rB = r.rq1Ohm + r.rlOhm + r.r4Ohm;
   const rC = r.r2Ohm + r.rlOhm + r.r4Ohm;
@@ -216,28 +228,20 @@ function solveWithLegHeld(
 }
 
 /**
- * Region and loss-inclusive duties at one operating point (CCM), in the order of the header comment.
- * tOverL: switching period over the inductance (s/H).
+ * Region and loss-inclusive duties at the operating point in `out` (vinV, ioutA, tOverL: switching
+ * period over the inductance, s/H), CCM, in the order of the header comment.
  */
-export function solveFourSwitch(
-  d: Design,
-  r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
-  out: FourSwitchPoint,
-): void {
+export function solveFourSwitch(d: Design, r: FourSwitchDrops, out: FourSwitchPoint): void {
   // The buck and boost regions have two intervals, where the fixed point has a closed form; the
   // iteration below serves the transition region (and anything the closed forms do not settle).
-  const buck = solveBuckClosed(d, r, vin, iout, tOverL, out);
+  const buck = solveBuckClosed(d, r, out);
   if (buck === IN_REGION) return;
-  const boost = solveBoostClosed(d, r, vin, iout, tOverL, out);
+  const boost = solveBoostClosed(d, r, out);
   if (boost === IN_REGION) return;
   // Both two-interval solutions exist and miss their regions: the transition region, as the iteration's
   // own region tests would conclude (same fixed points). Otherwise let the iteration sort it out.
-  if (buck === OUTSIDE && boost === OUTSIDE && solveTransition(d, r, vin, iout, tOverL, out, true, false))
-    return;
-  solveFourSwitchByIteration(d, r, vin, iout, tOverL, out);
+  if (buck === OUTSIDE && boost === OUTSIDE && solveTransition(d, r, out, true, false)) return;
+  solveFourSwitchByIteration(d, r, out);
 }
 
 /** Outcomes of the closed forms: the point is in the region (out written), has a solution outside it, or none. */
@@ -246,17 +250,10 @@ const OUTSIDE = 1;
 const NO_SOLUTION = 2;
 
 /** solveFourSwitch by the fixed-point iteration alone, every region (the tests' reference for the closed forms). */
-export function solveFourSwitchByIteration(
-  d: Design,
-  r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
-  out: FourSwitchPoint,
-): void {
+export function solveFourSwitchByIteration(d: Design, r: FourSwitchDrops, out: FourSwitchPoint): void {
   // A test that stopped early leaves `out` short of its fixed point; that only shows when the solve
   // that follows fails before its first write. Then the region is found again without early stops.
-  if (!solveRegion(d, r, vin, iout, tOverL, out, true)) solveRegion(d, r, vin, iout, tOverL, out, false);
+  if (!solveRegion(d, r, out, true)) solveRegion(d, r, out, false);
 }
 
 /**
@@ -265,14 +262,10 @@ export function solveFourSwitchByIteration(
  * balance D1·vB + (1 − D1)·vC = 0 is linear: D1 = −vC/(vB − vC) — the header's fixed point in one step.
  * Writes `out` only when the point is in the buck region (D1 < 1 and ≤ dutyMax).
  */
-function solveBuckClosed(
-  d: Design,
-  r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
-  out: FourSwitchPoint,
-): number {
+function solveBuckClosed(d: Design, r: FourSwitchDrops, out: FourSwitchPoint): number {
+  const vin = out.vinV;
+  const iout = out.ioutA;
+  const tOverL = out.tOverL;
   const vout = Math.abs(d.voutV);
   const il = iout;
   const vB = vin - vout - r.vf2V - (r.rq1Ohm + r.rlOhm + r.r4Ohm) * il;
@@ -307,14 +300,10 @@ function solveBuckClosed(
  * from the ideal duty (the larger lies past the loss-limited peak ratio); cancellation-free 2c/(q + √…).
  * Writes `out` only when the point is in the boost region (0 < D3, dutyMin ≤ D3).
  */
-function solveBoostClosed(
-  d: Design,
-  r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
-  out: FourSwitchPoint,
-): number {
+function solveBoostClosed(d: Design, r: FourSwitchDrops, out: FourSwitchPoint): number {
+  const vin = out.vinV;
+  const iout = out.ioutA;
+  const tOverL = out.tOverL;
   const vout = Math.abs(d.voutV);
   const rA = r.rq1Ohm + r.rlOhm + r.rq3Ohm;
   const rB = r.rq1Ohm + r.rlOhm + r.r4Ohm;
@@ -348,25 +337,20 @@ function solveBoostClosed(
 }
 
 /** solveFourSwitch's region order; false when an early stop may have left its mark on `out`. */
-function solveRegion(
-  d: Design,
-  r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
-  out: FourSwitchPoint,
-  early: boolean,
-): boolean {
+function solveRegion(d: Design, r: FourSwitchDrops, out: FourSwitchPoint, early: boolean): boolean {
+  const vin = out.vinV;
   const vout = Math.abs(d.voutV);
-  const maxD1 = early ? d.dutyMax : Number.NaN;
-  const minD3 = early ? d.dutyMin : Number.NaN;
-  const buck = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', 0, maxD1, out);
+  leg[LEG_HELD] = 0;
+  leg[LEG_LIMIT] = early ? d.dutyMax : Number.NaN;
+  const buck = solveWithLegHeld(d, r, 'd3', out);
   if (buck === SOLVED && out.d1 < 1 && out.d1 <= d.dutyMax) {
     out.region = 'buck';
     return true;
   }
   let stopped = buck === BEYOND;
-  const boost = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', 1, minD3, out);
+  leg[LEG_HELD] = 1;
+  leg[LEG_LIMIT] = early ? d.dutyMin : Number.NaN;
+  const boost = solveWithLegHeld(d, r, 'd1', out);
   if (boost === SOLVED && out.d3 > 0 && out.d3 >= d.dutyMin) {
     out.region = 'boost';
     return true;
@@ -378,7 +362,7 @@ function solveRegion(
     return !stopped || wroteOut;
   }
   stopped ||= boost === BEYOND;
-  return solveTransition(d, r, vin, iout, tOverL, out, early, stopped);
+  return solveTransition(d, r, out, early, stopped);
 }
 
 /**
@@ -389,22 +373,21 @@ function solveRegion(
 function solveTransition(
   d: Design,
   r: FourSwitchDrops,
-  vin: number,
-  iout: number,
-  tOverL: number,
   out: FourSwitchPoint,
   early: boolean,
   stoppedBefore: boolean,
 ): boolean {
-  const vout = Math.abs(d.voutV);
-  const maxD1 = early ? d.dutyMax : Number.NaN;
   let stopped = stoppedBefore;
   out.region = 'buck-boost';
-  const held = solveWithLegHeld(vin, vout, iout, tOverL, r, 'd3', d.dutyMin, maxD1, out);
+  leg[LEG_HELD] = d.dutyMin;
+  leg[LEG_LIMIT] = early ? d.dutyMax : Number.NaN;
+  const held = solveWithLegHeld(d, r, 'd3', out);
   if (held === SOLVED && out.d1 <= d.dutyMax) return true;
   const heldWrote = wroteOut;
   stopped ||= held === BEYOND;
-  solveWithLegHeld(vin, vout, iout, tOverL, r, 'd1', d.dutyMax, Number.NaN, out);
+  leg[LEG_HELD] = d.dutyMax;
+  leg[LEG_LIMIT] = Number.NaN;
+  solveWithLegHeld(d, r, 'd1', out);
   return !stopped || wroteOut || (heldWrote && held !== BEYOND);
 }
 
@@ -419,8 +402,11 @@ export function transitionBandV(d: Design, iout: number, out: { loV: number; hiV
   const pt = newPoint();
   const vout = Math.abs(d.voutV);
   const tOverL = 1 / (d.params.fswHz * d.parts[L1].value);
+  pt.ioutA = iout;
+  pt.tOverL = tOverL;
   const regionAt = (vin: number) => {
-    solveFourSwitch(d, r, vin, iout, tOverL, pt);
+    pt.vinV = vin;
+    solveFourSwitch(d, r, pt);
     return pt.region;
   };
   const span = Math.max(4 * vout, (2 * vout) / Math.max(d.dutyMax, 0.05));

@@ -19,12 +19,12 @@
  */
 import type { Design } from '../engine/design.ts';
 import type { Caution, RectifierKind } from '../engine/types.ts';
-import { type Fractions3, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
+import { type Fractions3, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatSi } from '../units/format.ts';
-import { type CcmDuty, type DcmDuty, solveCcmDuty, solveDcmDuty } from './buck-boost-family.ts';
+import { newCcmDuty, newDcmDuty, solveCcmDuty, solveDcmDuty } from './buck-boost-family.ts';
 import { rhpZeroCaution } from './rhp-zero.ts';
-import type { ComponentSpec, OperatingScalars, Topology } from './topology.ts';
+import type { ComponentSpec, OperatingPoint, OperatingScalars, Topology } from './topology.ts';
 
 function components(rect: RectifierKind): ComponentSpec[] {
   return [
@@ -89,11 +89,14 @@ const CIN = 4;
 const COUT = 5;
 const U1 = 6;
 
-const ccm: CcmDuty = { duty: 0, converged: false };
-const dcm: DcmDuty = { duty: 0, duty2: 0, peakA: 0, vOnV: 0, vOffV: 0, converged: false };
+const ccm = newCcmDuty();
+const dcm = newDcmDuty();
 const frac: Fractions3 = { d0: 0, d1: 0, d2: 0 };
+const tri = newTriangle();
 
-function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingScalars): void {
+function operate(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const p = d.parts;
   const vo = Math.abs(d.voutV);
   const fsw = d.params.fswHz;
@@ -105,7 +108,16 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
   const rr = sync ? p[RECT].ronOhm : p[RECT].rdOhm;
   const rl = p[L1].dcrOhm;
 
-  solveCcmDuty(vin, vo, vf, rr, rq, 0, 0, rl, iout, ccm);
+  ccm.vinV = vin;
+  ccm.voV = vo;
+  ccm.vfV = vf;
+  ccm.rrOhm = rr;
+  ccm.rqOhm = rq;
+  ccm.r1Ohm = 0;
+  ccm.r2Ohm = 0;
+  ccm.rBothOhm = rl; // the single inductor carries the switch current in both intervals
+  ccm.ioutA = iout;
+  solveCcmDuty(ccm);
   let D = ccm.duty;
   const il = iout / (1 - D);
   const vd = vf + rr * il;
@@ -118,7 +130,15 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
   // Diode rectifier: a negative valley in the CCM solution means the diode stops: DCM.
   let mode: 'ccm' | 'dcm' = 'ccm';
   if (!sync && a < 0) {
-    solveDcmDuty(vin, vo, vf, iout, l, fsw, rq + rl, rr + rl, dcm);
+    dcm.vinV = vin;
+    dcm.voV = vo;
+    dcm.vfV = vf;
+    dcm.ioutA = iout;
+    dcm.leH = l;
+    dcm.fswHz = fsw;
+    dcm.rOnOhm = rq + rl;
+    dcm.rOffOhm = rr + rl;
+    solveDcmDuty(dcm);
     if (dcm.duty + dcm.duty2 < 1) mode = 'dcm';
   }
   s.duty2 = 0;
@@ -129,7 +149,10 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
     s.converged = ccm.converged;
     const iin = D * il;
     s.iinA = iin;
-    w.set2(L1, D, a, b, b, a);
+    tri.duty = D;
+    tri.lo = a;
+    tri.hi = b;
+    w.setTriangle(L1, tri);
     w.iOnA[Q1] = a;
     w.iOffA[Q1] = b;
     w.vSwV[Q1] = Math.abs(vin + vo + vd);
@@ -148,7 +171,9 @@ function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingS
     s.duty = D;
     s.converged = dcm.converged;
     s.iinA = iin;
-    w.set3(L1, f, 0, pk, pk, 0, 0, 0);
+    tri.lo = 0;
+    tri.hi = pk;
+    w.setTriangleIdle(L1, tri, f);
     w.iOffA[Q1] = pk;
     w.vSwV[Q1] = Math.abs(vin + vo + vf);
     w.vSwV[RECT] = Math.abs(vin + vo);

@@ -18,8 +18,8 @@
  */
 import type { Design } from '../engine/design.ts';
 import type { RectifierKind } from '../engine/types.ts';
-import { ALL_SEGMENTS, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
-import type { ComponentSpec, OperatingScalars } from './topology.ts';
+import { ALL_SEGMENTS, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
+import type { ComponentSpec, OperatingPoint, OperatingScalars } from './topology.ts';
 
 export type SepicVariant = 'separate' | 'coupled' | 'damped';
 
@@ -104,20 +104,29 @@ const U1 = 8;
 const CD = 9;
 const RD = 10;
 
-/** Ripple (A peak-to-peak) of two windings over one interval of length t with winding voltages v1, v2. */
-export function windingRipples(
-  d: Design,
-  v1: number,
-  v2: number,
-  t: number,
-  out: { r1: number; r2: number },
-): void {
+/**
+ * Ripple of two windings over one interval: in v1, v2 (winding voltages, V) and t (interval, s), out
+ * r1, r2 (A peak-to-peak). One object for inputs and outputs, filled by the caller: the corner loop
+ * passes no numbers as arguments (V8 boxes them when the call stays out of line).
+ */
+export interface WindingRipples {
+  v1: number;
+  v2: number;
+  t: number;
+  r1: number;
+  r2: number;
+}
+
+export function windingRipples(d: Design, x: WindingRipples): void {
   const l1 = d.parts[L1].value;
   const l2 = d.parts[L2].value;
   const k = d.coupling;
+  const v1 = x.v1;
+  const v2 = x.v2;
+  const t = x.t;
   if (k <= 0) {
-    out.r1 = (v1 * t) / l1;
-    out.r2 = (v2 * t) / l2;
+    x.r1 = (v1 * t) / l1;
+    x.r2 = (v2 * t) / l2;
     return;
   }
   const m = k * Math.sqrt(l1 * l2);
@@ -125,72 +134,80 @@ export function windingRipples(
   if (det <= 1e-9 * l1 * l2) {
     // perfectly coupled limit: both windings carry the same ripple, set by the mean voltage
     const r = (0.5 * (v1 + v2) * t) / (l1 + m);
-    out.r1 = r;
-    out.r2 = r;
+    x.r1 = r;
+    x.r2 = r;
     return;
   }
-  out.r1 = ((l2 * v1 - m * v2) * t) / det;
-  out.r2 = ((l1 * v2 - m * v1) * t) / det;
+  x.r1 = ((l2 * v1 - m * v2) * t) / det;
+  x.r2 = ((l1 * v2 - m * v1) * t) / det;
 }
 
-const rip = { r1: 0, r2: 0 };
-const bows = { w1on: 0, w1off: 0, w2on: 0, w2off: 0 };
-const slopes = { on: 0, off: 0 };
+const rip: WindingRipples = { v1: 0, v2: 0, t: 0, r1: 0, r2: 0 };
+const tri = newTriangle();
+/** The coupling capacitor's charge swing (period units), from WaveSet.chargeSwingInto. */
+const swing = new Float64Array(1);
 
 /**
- * Rate of change of the coupling-capacitor voltage (V/s) in each interval: its current is −IL2 while
- * the switch is on and +IL1 while it is off (small-ripple means), over its capacitance.
+ * Winding-current bows: in the winding averages il1, il2 (A) and the interval lengths tOn, tOff (s),
+ * out the midpoint bows (A) of each winding in each interval (one object, as for WindingRipples).
  */
-function vcsSlopes(d: Design, il1: number, il2: number): { on: number; off: number } {
-  const cs = d.parts[CS].value;
-  slopes.on = cs > 0 ? -il2 / cs : 0;
-  slopes.off = cs > 0 ? il1 / cs : 0;
-  return slopes;
+export interface SepicBows {
+  il1: number;
+  il2: number;
+  tOn: number;
+  tOff: number;
+  w1on: number;
+  w1off: number;
+  w2on: number;
+  w2off: number;
 }
 
+const bows: SepicBows = { il1: 0, il2: 0, tOn: 0, tOff: 0, w1on: 0, w1off: 0, w2on: 0, w2off: 0 };
+
 /**
- * Winding-current bows. With Γ = L⁻¹ (L1, L2, M = k·√(L1·L2)): on-time dv2/dt = σon, off-time
- * dv1/dt = −σoff, so d²i/dt² = Γ·dv/dt and the midpoint bow of an interval of length t is −(d²i/dt²)·t²/8.
- * A perfectly coupled pair (singular L) is the textbook idealisation: no bow.
+ * The coupling capacitor's voltage ramps at σon = −IL2/Cs while the switch is on and σoff = +IL1/Cs
+ * while it is off (small-ripple means). With Γ = L⁻¹ (L1, L2, M = k·√(L1·L2)): on-time dv2/dt = σon,
+ * off-time dv1/dt = −σoff, so d²i/dt² = Γ·dv/dt and the midpoint bow of an interval of length t is
+ * −(d²i/dt²)·t²/8. A perfectly coupled pair (singular L) is the textbook idealisation: no bow.
  */
-export function bowSepic(
-  d: Design,
-  sl: { on: number; off: number },
-  tOn: number,
-  tOff: number,
-  out: { w1on: number; w1off: number; w2on: number; w2off: number },
-): void {
+export function bowSepic(d: Design, x: SepicBows): void {
   const l1 = d.parts[L1].value;
   const l2 = d.parts[L2].value;
+  const cs = d.parts[CS].value;
   const m = d.coupling > 0 ? d.coupling * Math.sqrt(l1 * l2) : 0;
   const det = l1 * l2 - m * m;
   if (!(det > 1e-9 * l1 * l2)) {
-    out.w1on = 0;
-    out.w1off = 0;
-    out.w2on = 0;
-    out.w2off = 0;
+    x.w1on = 0;
+    x.w1off = 0;
+    x.w2on = 0;
+    x.w2off = 0;
     return;
   }
+  const on = cs > 0 ? -x.il2 / cs : 0;
+  const off = cs > 0 ? x.il1 / cs : 0;
   // Γ = [[l2, −m], [−m, l1]] / det
-  const c1on = (-m * sl.on) / det;
-  const c2on = (l1 * sl.on) / det;
-  const c1off = (l2 * -sl.off) / det;
-  const c2off = (-m * -sl.off) / det;
-  out.w1on = (-c1on * tOn * tOn) / 8;
-  out.w2on = (-c2on * tOn * tOn) / 8;
-  out.w1off = (-c1off * tOff * tOff) / 8;
-  out.w2off = (-c2off * tOff * tOff) / 8;
+  const c1on = (-m * on) / det;
+  const c2on = (l1 * on) / det;
+  const c1off = (l2 * -off) / det;
+  const c2off = (-m * -off) / det;
+  const tOn = x.tOn;
+  const tOff = x.tOff;
+  x.w1on = (-c1on * tOn * tOn) / 8;
+  x.w2on = (-c2on * tOn * tOn) / 8;
+  x.w1off = (-c1off * tOff * tOff) / 8;
+  x.w2off = (-c2off * tOff * tOff) / 8;
 }
 const dcmFractions = { d0: 0, d1: 0, d2: 0 };
 
 export function operateSepic(
   d: Design,
   variant: SepicVariant,
-  vin: number,
-  iout: number,
+  at: OperatingPoint,
   w: WaveSet,
   s: OperatingScalars,
 ): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const p = d.parts;
   const vout = Math.abs(d.voutV);
   const fsw = d.params.fswHz;
@@ -225,7 +242,10 @@ export function operateSepic(
   // on-state winding voltages; off-state follows from volt-second balance
   const v1on = vin - il1 * r1 - isw * rq;
   const v2on = vcs - isw * rq - il2 * r2;
-  windingRipples(d, v1on, v2on, D * T, rip);
+  rip.v1 = v1on;
+  rip.v2 = v2on;
+  rip.t = D * T;
+  windingRipples(d, rip);
   let dI1 = rip.r1;
   let dI2 = rip.r2;
   let mode: 'ccm' | 'dcm' = 'ccm';
@@ -238,11 +258,15 @@ export function operateSepic(
     // DCM of the buck-boost family: during D the summed current rises by ΣΔ = v·D·T/Le, during D2 it
     // falls to zero; Iout = ½·ΣΔ·D2 with D2 = D·v1on/(Vout+Vd) (Erickson & Maksimović ch. 5: D = √K·M).
     const vo = vout + vf;
-    windingRipples(d, vin, vin, T, rip); // slopes per unit on-time at ideal on-state voltages
+    rip.v1 = vin; // slopes per unit on-time at ideal on-state voltages
+    rip.v2 = vin;
+    rip.t = T;
+    windingRipples(d, rip);
     const sumPerD = rip.r1 + rip.r2;
     D = Math.sqrt((2 * iout * vo) / (sumPerD * vin));
     d2 = (D * vin) / vo;
-    windingRipples(d, vin, vin, D * T, rip);
+    rip.t = D * T;
+    windingRipples(d, rip);
     dI1 = rip.r1;
     dI2 = rip.r2;
   }
@@ -256,7 +280,11 @@ export function operateSepic(
     // contains VCs (v2 while the switch is on, v1 while it is off), so each winding current bends with
     // d²i/dt² from the inverse inductance matrix; a segment of length t then bows by −c·t²/8 at its
     // midpoint. Tight coupling magnifies it (the leakage inductance is what the ramp drives).
-    bowSepic(d, vcsSlopes(d, il1, il2), D * T, Dp * T, bows);
+    bows.il1 = il1;
+    bows.il2 = il2;
+    bows.tOn = D * T;
+    bows.tOff = Dp * T;
+    bowSepic(d, bows);
     const w1on = bows.w1on;
     const w1off = bows.w1off;
     const w2on = bows.w2on;
@@ -273,8 +301,18 @@ export function operateSepic(
     // the input current is the input winding's average, bows included
     const iin = il1 + s1 + (2 / 3) * (D * w1on + Dp * w1off);
     s.iinA = iin;
-    w.set2(L1, D, a1, b1, b1, a1, w1on, w1off);
-    w.set2(L2, D, a2, b2, b2, a2, w2on, w2off);
+    // winding triangles, handed over in a module object (numbers as arguments would be boxed)
+    tri.duty = D;
+    tri.lo = a1;
+    tri.hi = b1;
+    tri.bowRise = w1on;
+    tri.bowFall = w1off;
+    w.setTriangle(L1, tri);
+    tri.lo = a2;
+    tri.hi = b2;
+    tri.bowRise = w2on;
+    tri.bowFall = w2off;
+    w.setTriangle(L2, tri);
     w.iOnA[Q1] = a1 + a2;
     w.iOffA[Q1] = b1 + b2;
     w.vSwV[Q1] = Math.abs(vcs + vout + vd);
@@ -294,8 +332,12 @@ export function operateSepic(
     const shapeAvg1 = dI1 * 0.5 * (D + d2);
     const il1dcm = i0 + shapeAvg1;
     s.iinA = il1dcm;
-    w.set3(L1, f, i0, i0 + dI1, i0 + dI1, i0, i0, i0);
-    w.set3(L2, f, -i0, -i0 + dI2, -i0 + dI2, -i0, -i0, -i0);
+    tri.lo = i0;
+    tri.hi = i0 + dI1;
+    w.setTriangleIdle(L1, tri, f);
+    tri.lo = -i0;
+    tri.hi = -i0 + dI2;
+    w.setTriangleIdle(L2, tri, f);
     const pk = dI1 + dI2;
     w.iOffA[Q1] = pk;
     w.vSwV[Q1] = Math.abs(vin + vout);
@@ -331,10 +373,16 @@ export function operateSepic(
     // leg current is about ΔVcs/Rd peak-to-peak, a triangle (common practice estimate).
     const cs = p[CS].value;
     const rd = p[RD].value;
-    const dv = cs > 0 ? (w.chargeSwing(CS) * T) / cs : 0;
+    w.chargeSwingInto(CS, swing, 0);
+    const dv = cs > 0 ? (swing[0] * T) / cs : 0;
     const x = rd > 0 ? (0.5 * dv) / rd : 0;
-    w.set2(RD, D, -x, x, x, -x);
-    w.set2(CD, D, -x, x, x, -x);
+    tri.duty = D;
+    tri.lo = -x;
+    tri.hi = x;
+    tri.bowRise = 0;
+    tri.bowFall = 0;
+    w.setTriangle(RD, tri);
+    w.copy(CD, RD);
     w.vPeakV[CD] = Math.abs(vcs);
     w.vDcV[CD] = vcs;
     w.vPeakV[RD] = Math.abs(dv);

@@ -14,6 +14,6 @@ export const sepicCoupled: Topology = {
   modeChanging: false,
   loops: 1,
   components: (rect) => sepicComponents('coupled', rect),
-  operate: (d, vin, iout, w, s) => operateSepic(d, 'coupled', vin, iout, w, s),
+  operate: (d, at, w, s) => operateSepic(d, 'coupled', at, w, s),
   cautions: (d, spec, nominal) => sepicCautions(d, spec, nominal, 'coupled'),
 };

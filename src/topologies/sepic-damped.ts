@@ -14,6 +14,6 @@ export const sepicDamped: Topology = {
   modeChanging: false,
   loops: 1,
   components: (rect) => sepicComponents('damped', rect),
-  operate: (d, vin, iout, w, s) => operateSepic(d, 'damped', vin, iout, w, s),
+  operate: (d, at, w, s) => operateSepic(d, 'damped', at, w, s),
   cautions: (d, spec, nominal) => sepicCautions(d, spec, nominal, 'damped'),
 };

@@ -14,6 +14,6 @@ export const sepic: Topology = {
   modeChanging: false,
   loops: 1,
   components: (rect) => sepicComponents('separate', rect),
-  operate: (d, vin, iout, w, s) => operateSepic(d, 'separate', vin, iout, w, s),
+  operate: (d, at, w, s) => operateSepic(d, 'separate', at, w, s),
   cautions: (d, spec, nominal) => sepicCautions(d, spec, nominal, 'separate'),
 };

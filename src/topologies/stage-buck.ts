@@ -20,22 +20,18 @@
  * resistive drops are left out of the DCM duty (they are small at the light loads where DCM occurs).
  */
 import type { Design } from '../engine/design.ts';
-import type { Fractions3, WaveSet } from '../engine/wave.ts';
+import { type Fractions3, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 import { newDrops, readDrops, type StageSlots, type StageState } from './stage.ts';
 
 const drops = newDrops();
 const f3: Fractions3 = { d0: 0, d1: 0, d2: 0 };
+const tri = newTriangle();
 
 /** Steady state of a buck stage from `viV` down to `voV` delivering `ioA` (all > 0). */
-export function operateBuckStage(
-  d: Design,
-  slots: StageSlots,
-  viV: number,
-  voV: number,
-  ioA: number,
-  w: WaveSet,
-  st: StageState,
-): void {
+export function operateBuckStage(d: Design, slots: StageSlots, w: WaveSet, st: StageState): void {
+  const viV = st.viV;
+  const voV = st.voV;
+  const ioA = st.ioA;
   readDrops(d, slots, drops);
   const { rqOhm: rq, vfV: vf, rrOhm: rr, rlOhm: rl } = drops;
   const T = 1 / d.params.fswHz;
@@ -73,17 +69,19 @@ export function operateBuckStage(
       st.iinA = 0.5 * ipk * D;
       st.ilA = ioA;
       st.ripplePpA = ipk;
-      w.set3(slots.inductor, f3, 0, ipk, ipk, 0, 0, 0);
-      w.set3(slots.sw, f3, 0, ipk, 0, 0, 0, 0);
-      w.set3(slots.sense, f3, 0, ipk, 0, 0, 0, 0);
-      w.set3(slots.rect, f3, 0, 0, ipk, 0, 0, 0);
+      tri.lo = 0;
+      tri.hi = ipk;
+      w.setTriangleIdle(slots.inductor, tri, f3);
+      writeBranches(slots, w);
       w.iOnA[slots.sw] = 0;
       w.iOffA[slots.sw] = ipk;
       w.vSwV[slots.sw] = Math.abs(viV + vf);
       w.iOnA[slots.rect] = 0;
       w.iOffA[slots.rect] = 0;
       w.vSwV[slots.rect] = Math.abs(viV);
-      setBuckVoltages(slots, viV, viV + vf, viV - voV, vo, w);
+      w.vPeakV[slots.sw] = Math.abs(viV + vf);
+      w.vPeakV[slots.rect] = Math.abs(viV);
+      w.vPeakV[slots.inductor] = Math.max(Math.abs(viV - voV), Math.abs(vo));
       return;
     }
   }
@@ -95,10 +93,11 @@ export function operateBuckStage(
   st.iinA = D * ioA;
   st.ilA = ioA;
   st.ripplePpA = ripple;
-  w.set2(slots.inductor, D, lo, hi, hi, lo);
-  w.set2(slots.sw, D, lo, hi, 0, 0);
-  w.set2(slots.sense, D, lo, hi, 0, 0);
-  w.set2(slots.rect, D, 0, 0, hi, lo);
+  tri.duty = D;
+  tri.lo = lo;
+  tri.hi = hi;
+  w.setTriangle(slots.inductor, tri);
+  writeBranches(slots, w);
   // the high-side switch turns on at the valley and off at the peak, swinging the switch node from
   // −Vd to Vi; the rectifier commutates the same two currents and blocks Vi
   w.iOnA[slots.sw] = lo;
@@ -107,23 +106,17 @@ export function operateBuckStage(
   w.iOnA[slots.rect] = lo;
   w.iOffA[slots.rect] = hi;
   w.vSwV[slots.rect] = Math.abs(viV);
-  setBuckVoltages(slots, viV, viV + vd, vOn, voV + vd + ioA * rl, w);
+  w.vPeakV[slots.sw] = Math.abs(viV + vd);
+  w.vPeakV[slots.rect] = Math.abs(viV);
+  w.vPeakV[slots.inductor] = Math.max(Math.abs(vOn), Math.abs(voV + vd + ioA * rl));
 }
 
-function setBuckVoltages(
-  slots: StageSlots,
-  viV: number,
-  vSwOffV: number,
-  vOnV: number,
-  vOffV: number,
-  w: WaveSet,
-): void {
-  w.vPeakV[slots.sw] = Math.abs(vSwOffV);
-  w.vDcV[slots.sw] = 0;
-  w.vPeakV[slots.sense] = 0;
-  w.vDcV[slots.sense] = 0;
-  w.vPeakV[slots.rect] = Math.abs(viV);
-  w.vDcV[slots.rect] = 0;
-  w.vPeakV[slots.inductor] = Math.max(Math.abs(vOnV), Math.abs(vOffV));
-  w.vDcV[slots.inductor] = 0;
+/**
+ * The stage's switch (and sense resistor) carries the inductor current while on, the rectifier while
+ * off: both masked from the inductor's waveform (CCM and DCM alike; the parts' other fields stay zero).
+ */
+function writeBranches(slots: StageSlots, w: WaveSet): void {
+  w.combine(slots.sw, slots.inductor, 1, SEGMENT_0, slots.inductor, 0, 0);
+  w.copy(slots.sense, slots.sw);
+  w.combine(slots.rect, slots.inductor, 1, SEGMENT_1, slots.inductor, 0, 0);
 }

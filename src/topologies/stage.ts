@@ -13,8 +13,15 @@ export interface StageSlots {
   inductor: number;
 }
 
-/** Result of one stage at one operating point (written in place: no allocation in `operate`). */
+/**
+ * One stage at one operating point: its inputs (filled by the caller: numbers travel in this object, not
+ * as arguments, which V8 boxes when a call stays out of line) and its result (written in place).
+ */
 export interface StageState {
+  /** Input and output voltage (V) and output current (A) the stage works between. */
+  viV: number;
+  voV: number;
+  ioA: number;
   /** On-time fraction of the stage's controlled switch. */
   duty: number;
   /** Fraction of the period the rectifier conducts (1 − D in CCM, D₂ in DCM). */
@@ -31,7 +38,18 @@ export interface StageState {
 }
 
 export function newStageState(): StageState {
-  return { duty: 0, rectDuty: 0, mode: 'ccm', iinA: 0, ilA: 0, ripplePpA: 0, converged: true };
+  return {
+    viV: 0,
+    voV: 0,
+    ioA: 0,
+    duty: 0,
+    rectDuty: 0,
+    mode: 'ccm',
+    iinA: 0,
+    ilA: 0,
+    ripplePpA: 0,
+    converged: true,
+  };
 }
 
 /** The drops of one stage, taken from the design's present parasitics. */

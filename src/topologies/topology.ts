@@ -26,6 +26,16 @@ export interface ComponentSpec extends ComponentInfo {
 }
 
 /** Scalars of one operating point that a topology writes beside the waveforms. */
+/**
+ * Where a topology is operated: input voltage (V) and load current (A). An engine Corner is one. The
+ * point travels as an object because V8 boxes a number passed to a call it leaves out of line, and
+ * operate is called through the topology table in the corner loop.
+ */
+export interface OperatingPoint {
+  vinV: number;
+  ioutA: number;
+}
+
 export interface OperatingScalars {
   duty: number;
   /**
@@ -64,7 +74,7 @@ export interface Topology {
    * floating-point arguments off calls the JIT may leave out of line (see wave.ts). Voltages and
    * currents use the design's present parasitics (drops included in the duty).
    */
-  operate(design: Design, vinV: number, ioutA: number, waves: WaveSet, out: OperatingScalars): void;
+  operate(design: Design, at: OperatingPoint, waves: WaveSet, out: OperatingScalars): void;
   /** Topology-specific cautions (resonant overshoot, RHP zero ...) for a sized design. */
   cautions?(design: Design, spec: RailSpec, nominal: OperatingScalars): Caution[];
   /**

@@ -26,7 +26,7 @@ import type { RailSpec } from '../spec/rail-spec.ts';
 import { couplingResonanceCaution, couplingRhpZeroCaution } from './coupling-cautions.ts';
 import * as net from './coupling-network.ts';
 import { newCouplingPoint, solveCouplingNetwork, writeCommonWaves } from './coupling-network.ts';
-import type { ComponentSpec, OperatingScalars, Topology } from './topology.ts';
+import type { ComponentSpec, OperatingPoint, OperatingScalars, Topology } from './topology.ts';
 
 // Slot numbers read once (an imported binding compiled to CommonJS is a getter on every read).
 const { CIN, COUT, CS, L1, L2, Q1, RECT, RS, U1 } = net;
@@ -94,19 +94,25 @@ function components(rect: RectifierKind): ComponentSpec[] {
 
 const pt = newCouplingPoint();
 
-function operate(d: Design, vin: number, iout: number, w: WaveSet, s: OperatingScalars): void {
+function operate(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars): void {
+  const vin = at.vinV;
+  const iout = at.ioutA;
   const p = d.parts;
   const vo = Math.abs(d.voutV);
   const rq = p[Q1].ronOhm + p[RS].value;
-  solveCouplingNetwork(d, vin, iout, pt);
+  pt.vinV = vin;
+  pt.ioutA = iout;
+  solveCouplingNetwork(d, pt);
   const dc = pt.dutyCcm;
   const vcs = (dc * (vin - rq * pt.iswA) - (1 - dc) * pt.vdV - p[L1].dcrOhm * pt.il1A) / (1 - dc);
   const vQ1 = vin + pt.vdV + vcs;
   const vRect = vin - rq * pt.iswA + vcs;
 
-  writeCommonWaves(pt, iout, vQ1, vRect, w);
+  pt.vQ1SwV = vQ1;
+  pt.vRectSwV = vRect;
+  writeCommonWaves(pt, w);
   // the input current is the switch current (pulsating); Cin supplies its ripple
-  const iin = w.average(Q1);
+  const iin = pt.iswAvgA;
   s.duty = pt.duty;
   s.duty2 = 0;
   s.mode = pt.mode;

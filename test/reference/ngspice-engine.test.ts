@@ -109,7 +109,7 @@ function equivalentDuties(
     busV: ss.nodes.bus ? ss.nodes.bus.avg : d.busV,
   };
   const s: OperatingScalars = { duty: 0, duty2: 0, mode: 'ccm', iinA: 0, converged: true };
-  topology.operate(copy, vinV, vo / rLoadOhm, new WaveSet(d.parts.length), s);
+  topology.operate(copy, { vinV, ioutA: vo / rLoadOhm }, new WaveSet(d.parts.length), s);
   return s;
 }
 

@@ -6,7 +6,32 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { type CcmDuty, solveCcmDuty } from '../../src/topologies/buck-boost-family.ts';
+import { newCcmDuty, solveCcmDuty } from '../../src/topologies/buck-boost-family.ts';
+
+/** The duty problem with its inputs filled (the solver reads them from the object it writes to). */
+function problem(
+  vin: number,
+  vo: number,
+  vf: number,
+  rr: number,
+  rq: number,
+  r1: number,
+  r2: number,
+  rb: number,
+  iout: number,
+) {
+  const x = newCcmDuty();
+  x.vinV = vin;
+  x.voV = vo;
+  x.vfV = vf;
+  x.rrOhm = rr;
+  x.rqOhm = rq;
+  x.r1Ohm = r1;
+  x.r2Ohm = r2;
+  x.rBothOhm = rb;
+  x.ioutA = iout;
+  return x;
+}
 
 /** Residual of the header's balance D/(1−D) = (Vo + Vf + rr·Isw + R2·IL2 + Rb·Isw)/(Vin − R1·IL1 − (Rq + Rb)·Isw). */
 function balanceResidual(
@@ -30,8 +55,8 @@ function balanceResidual(
 
 describe('buck-boost family CCM duty (closed form)', () => {
   it('is D = Vo/(Vin + Vo) without drops', () => {
-    const out: CcmDuty = { duty: 0, converged: false };
-    solveCcmDuty(12, 5, 0, 0, 0, 0, 0, 0, 2, out);
+    const out = problem(12, 5, 0, 0, 0, 0, 0, 0, 2);
+    solveCcmDuty(out);
     expect(out.converged).toBe(true);
     expect(out.duty).toBeCloseTo(5 / 17, 14);
   });
@@ -49,8 +74,8 @@ describe('buck-boost family CCM duty (closed form)', () => {
         fc.double({ min: 0, max: 0.05, noNaN: true }),
         fc.double({ min: 0.01, max: 5, noNaN: true }),
         (vin, vo, vf, rr, rq, r1, r2, rb, iout) => {
-          const out: CcmDuty = { duty: 0, converged: false };
-          solveCcmDuty(vin, vo, vf, rr, rq, r1, r2, rb, iout, out);
+          const out = problem(vin, vo, vf, rr, rq, r1, r2, rb, iout);
+          solveCcmDuty(out);
           if (!out.converged) return; // past the loss-limited peak ratio: checked below
           expect(out.duty).toBeGreaterThan(0);
           expect(out.duty).toBeLessThan(0.999);
@@ -66,9 +91,8 @@ describe('buck-boost family CCM duty (closed form)', () => {
   });
 
   it('takes the lower of the two balance roots (the one reached from the ideal duty)', () => {
-    const out: CcmDuty = { duty: 0, converged: false };
-    const args = [5, 12, 0.4, 0.02, 0.05, 0.03, 0.02, 0, 3] as const;
-    solveCcmDuty(...args, out);
+    const out = problem(5, 12, 0.4, 0.02, 0.05, 0.03, 0.02, 0, 3);
+    solveCcmDuty(out);
     expect(out.converged).toBe(true);
     // the same balance by plain fixed-point iteration from the ideal duty (slow reference)
     let d = 12 / 17;
@@ -81,9 +105,10 @@ describe('buck-boost family CCM duty (closed form)', () => {
   });
 
   it('reports no solution when the drops cap the conversion ratio below the one asked', () => {
-    const out: CcmDuty = { duty: 0, converged: true };
     // 1 Ω in the switch path at 5 A from 5 V cannot make 48 V
-    solveCcmDuty(5, 48, 0.4, 0.05, 1, 0.1, 0.05, 0, 5, out);
+    const out = problem(5, 48, 0.4, 0.05, 1, 0.1, 0.05, 0, 5);
+    out.converged = true;
+    solveCcmDuty(out);
     expect(out.converged).toBe(false);
     expect(out.duty).toBeLessThan(1);
   });

@@ -42,7 +42,7 @@ export function operateAt(
 ): { w: WaveSet; s: OperatingScalars } {
   const w = new WaveSet(d.parts.length);
   const s = newScalars();
-  t.operate(d, vinV, ioutA, w, s);
+  t.operate(d, { vinV, ioutA }, w, s);
   return { w, s };
 }
 

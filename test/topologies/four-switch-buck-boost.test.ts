@@ -78,7 +78,7 @@ function sized(spec: RailSpec, p: CandidateParams, t: Technology, pins: Pins = {
   const waves = (vinV: number, ioutA = spec.load.maxA) => {
     const w = new WaveSet(d.parts.length);
     const s = newScalars();
-    topology.operate(d, vinV, ioutA, w, s);
+    topology.operate(d, { vinV, ioutA }, w, s);
     return { w, s, k: (name: string) => indexOf(d.components, name) };
   };
   return { d, at, waves };
@@ -521,8 +521,13 @@ describe('four-switch closed forms of the buck and boost regions', () => {
           for (const iout of [0.5, 2]) {
             const fast = newPoint();
             const slow = newPoint();
-            solveFourSwitch(d, r, vin, iout, tOverL, fast);
-            solveFourSwitchByIteration(d, r, vin, iout, tOverL, slow);
+            for (const p of [fast, slow]) {
+              p.vinV = vin;
+              p.ioutA = iout;
+              p.tOverL = tOverL;
+            }
+            solveFourSwitch(d, r, fast);
+            solveFourSwitchByIteration(d, r, slow);
             const what = `${t.name} ${rect} Vin ${vin.toFixed(3)} V, Iout ${iout} A`;
             expect(fast.region, what).toBe(slow.region);
             expect(fast.converged, what).toBe(slow.converged);

@@ -19,7 +19,7 @@ export function seedInitialState(
 ): Netlist {
   const w = new WaveSet(d.parts.length);
   const s: OperatingScalars = { duty: 0, duty2: 0, mode: 'ccm', iinA: 0, converged: true };
-  topology.operate(d, vinV, ioutA, w, s);
+  topology.operate(d, { vinV, ioutA }, w, s);
   const slot = new Map(d.parts.map((p, k) => [p.name, k]));
   const elements = netlist.elements.map((e) => {
     const k = slot.get(e.name);
