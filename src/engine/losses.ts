@@ -250,7 +250,7 @@ function coreLossDensity(d: Design, tech: Technology, data: Float64Array, k: num
     d.parts[k + 1].roleCode === ROLE_COUPLED_INDUCTOR;
   const m = coupled ? d.coupling * Math.sqrt(p.value * d.parts[k + 1].value) : 0;
   if (n === 2) {
-    // the usual triangle: two segments whose flux changes cancel exactly (set2 writes a→b, b→a)
+    // the usual triangle: two segments whose flux changes cancel exactly (setTriangle writes a→b, b→a)
     let dl0 = p.value * (data[o + B] - data[o + A]);
     let dl1 = p.value * (data[o + B + 1] - data[o + A + 1]);
     if (coupled) {

@@ -93,34 +93,6 @@ export class WaveSet {
     w[o + B + 1] = b1;
   }
 
-  /** Set a three-segment waveform (straight segments). */
-  set3(
-    k: number,
-    f: Fractions3,
-    a0: number,
-    b0: number,
-    a1: number,
-    b1: number,
-    a2: number,
-    b2: number,
-  ): void {
-    const o = k * WAVE_STRIDE;
-    const w = this.data;
-    w[o] = 3;
-    w[o + W] = 0;
-    w[o + W + 1] = 0;
-    w[o + W + 2] = 0;
-    w[o + F] = f.d0;
-    w[o + F + 1] = f.d1;
-    w[o + F + 2] = f.d2;
-    w[o + A] = a0;
-    w[o + A + 1] = a1;
-    w[o + A + 2] = a2;
-    w[o + B] = b0;
-    w[o + B + 1] = b1;
-    w[o + B + 2] = b2;
-  }
-
   /** Bow segment j of component k: its midpoint lies `bow` above the straight chord from a to b. */
   setBow(k: number, j: number, bow: number): void {
     this.data[k * WAVE_STRIDE + W + j] = bow;

@@ -53,7 +53,6 @@ const segKind = new Int8Array(3);
 const segF = new Float64Array(3);
 const segA = new Float64Array(3);
 const segB = new Float64Array(3);
-const f3 = { d0: 0, d1: 0, d2: 0 };
 const scratchF = new Float64Array(3);
 const scratchA = new Float64Array(3);
 const scratchB = new Float64Array(3);
@@ -113,17 +112,7 @@ function compactSegments(): void {
 
 /** The inductor current over the compacted intervals (A). */
 function writeInductor(w: WaveSet): void {
-  if (nSeg === 1) {
-    const b = scratchB[0];
-    w.set2(L1, 1, scratchA[0], b, b, b);
-  } else if (nSeg === 2) {
-    w.set2(L1, scratchF[0], scratchA[0], scratchB[0], scratchA[1], scratchB[1]);
-  } else {
-    f3.d0 = scratchF[0];
-    f3.d1 = scratchF[1];
-    f3.d2 = scratchF[2];
-    w.set3(L1, f3, scratchA[0], scratchB[0], scratchA[1], scratchB[1], scratchA[2], scratchB[2]);
-  }
+  w.setSegments(L1, nSeg, scratchF, scratchA, scratchB);
 }
 
 /** WaveSet.combine's segment mask of the compacted intervals whose kind is in `kinds` (a kind mask). */
