@@ -115,6 +115,22 @@ export class WaveSet {
     const o2 = k2 * WAVE_STRIDE;
     const n = w[o1];
     w[o] = n;
+    if (n === 2) {
+      // the usual two intervals, unrolled
+      const x10 = keep1 & 1 ? c1 : 0;
+      const x20 = keep2 & 1 ? c2 : 0;
+      const x11 = keep1 & 2 ? c1 : 0;
+      const x21 = keep2 & 2 ? c2 : 0;
+      w[o + F] = w[o1 + F];
+      w[o + F + 1] = w[o1 + F + 1];
+      w[o + A] = x10 * w[o1 + A] + x20 * w[o2 + A];
+      w[o + B] = x10 * w[o1 + B] + x20 * w[o2 + B];
+      w[o + W] = x10 * w[o1 + W] + x20 * w[o2 + W];
+      w[o + A + 1] = x11 * w[o1 + A + 1] + x21 * w[o2 + A + 1];
+      w[o + B + 1] = x11 * w[o1 + B + 1] + x21 * w[o2 + B + 1];
+      w[o + W + 1] = x11 * w[o1 + W + 1] + x21 * w[o2 + W + 1];
+      return;
+    }
     for (let j = 0; j < n; j++) {
       const x1 = (keep1 >> j) & 1 ? c1 : 0;
       const x2 = (keep2 >> j) & 1 ? c2 : 0;
