@@ -29,6 +29,10 @@ const B = 1 + 2 * MAX_SEGMENTS;
 /** Bow of each segment: midpoint minus the chord's midpoint (0 for straight segments). */
 const W = 1 + 3 * MAX_SEGMENTS;
 
+/** A segment's mean square is (a² + ab + b² + 2w(a + b))/3 + 8w²/15, computed with these factors. */
+const THIRD = 1 / 3;
+const EIGHT_FIFTEENTHS = 8 / 15;
+
 /** `keep` masks of WaveSet.combine: bit j keeps segment j. */
 export const SEGMENT_0 = 1;
 export const SEGMENT_1 = 2;
@@ -281,7 +285,7 @@ export class WaveSet {
       const a = d[o + A + j];
       const b = d[o + B + j];
       const w = d[o + W + j];
-      s += d[o + F + j] * ((a * a + a * b + b * b) / 3 + (2 * w * (a + b)) / 3 + (8 * w * w) / 15);
+      s += d[o + F + j] * ((a * a + a * b + b * b + 2 * w * (a + b)) * THIRD + w * w * EIGHT_FIFTEENTHS);
     }
     return Math.sqrt(s);
   }
@@ -318,7 +322,7 @@ export class WaveSet {
       const b = d[o + B + j];
       const w = d[o + W + j];
       avg += f * (0.5 * (a + b) + (2 / 3) * w);
-      ms += f * ((a * a + a * b + b * b) / 3 + (2 * w * (a + b)) / 3 + (8 * w * w) / 15);
+      ms += f * ((a * a + a * b + b * b + 2 * w * (a + b)) * THIRD + w * w * EIGHT_FIFTEENTHS);
       if (f <= 0) continue;
       mx = Math.max(mx, a, b);
       mn = Math.min(mn, a, b);
