@@ -9,7 +9,8 @@
  * edges. That union has at most four segments except when both stages of a buck-then-boost are
  * discontinuous (light load); then the shortest segment is merged into its shorter neighbour keeping
  * the segment charge (so the average, and the charge balance, stay exact; RMS and ripple become a
- * close estimate at a corner where they are small).
+ * close estimate at a corner where they are small). The stage waveforms summed here are straight
+ * segments (a plain buck or boost has no bowed currents); a bowed source would be read by its chords.
  */
 
 import type { WaveSet } from '../engine/wave.ts';
@@ -115,14 +116,11 @@ export function sumWaves(
 
   let mean = 0;
   if (acOnly) for (let j = 0; j < segs; j++) mean += segF[j] * 0.5 * (segA[j] + segB[j]);
-  const o = dst * WAVE_STRIDE;
-  d[o] = segs;
-  for (let j = 0; j < MAX_SEGMENTS; j++) {
-    const used = j < segs;
-    d[o + F + j] = used ? segF[j] : 0;
-    d[o + A + j] = used ? segA[j] - mean : 0;
-    d[o + B + j] = used ? segB[j] - mean : 0;
+  for (let j = 0; j < segs; j++) {
+    segA[j] -= mean;
+    segB[j] -= mean;
   }
+  w.setSegments(dst, segs, segF, segA, segB);
 }
 
 /** Insertion sort of the first n grid times (n ≤ 10; a subarray view would allocate). */
