@@ -1,7 +1,7 @@
 /** `straddle evaluate SPEC --topology ID --fsw FREQ [--ripple R] [--rect diode|sync] [--tech NAME] [--set N=V]... --json` */
 import { parseArgs } from 'node:util';
 import { evaluateCandidate } from '../engine/evaluate.ts';
-import { SAFETY_CAUTION } from '../report/study-markdown.ts';
+import { SAFETY_CAUTION } from '../report/caution.ts';
 import { CANDIDATE_OPTIONS, parseCandidateArgs } from './candidate-args.ts';
 import { renderEvaluationText } from './evaluation-text.ts';
 

@@ -1,6 +1,6 @@
 /** Plain-text rendering of one evaluation for the terminal. */
 import type { Evaluation } from '../engine/types.ts';
-import { SAFETY_CAUTION } from '../report/study-markdown.ts';
+import { SAFETY_CAUTION } from '../report/caution.ts';
 import type { RailSpec } from '../spec/rail-spec.ts';
 import { formatPercent, formatSi } from '../units/format.ts';
 

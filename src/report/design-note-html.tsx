@@ -10,7 +10,8 @@ import { SweepPlots } from '../../views/plots/sweep-plots.tsx';
 import { formatObjective } from '../study/objectives.ts';
 import type { Study } from '../study/types.ts';
 import { formatPercent, formatSiShort } from '../units/format.ts';
-import { FRONT_ROWS, SAFETY_CAUTION } from './study-markdown.ts';
+import { SAFETY_CAUTION } from './caution.ts';
+import { FRONT_ROWS } from './study-markdown.ts';
 
 const hz = (f: number) => formatSiShort(f, 'Hz', 3);
 const v = (x: number) => formatSiShort(x, 'V');

@@ -7,7 +7,7 @@
  * safety caution (id cell `caution`).
  */
 import type { Study } from '../study/types.ts';
-import { SAFETY_CAUTION } from './study-markdown.ts';
+import { SAFETY_CAUTION } from './caution.ts';
 
 export const STUDY_CSV_COLUMNS = [
   'id',

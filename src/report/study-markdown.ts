@@ -6,9 +6,7 @@
 import { formatObjective } from '../study/objectives.ts';
 import type { Study, StudyCandidate } from '../study/types.ts';
 import { formatSiShort } from '../units/format.ts';
-
-export const SAFETY_CAUTION =
-  'Estimates for topology selection only: verify with a circuit simulator and on hardware; check thermal design, creepage and clearance; defer to local codes and licensed practice.';
+import { SAFETY_CAUTION } from './caution.ts';
 
 /** Front rows shown in the note; the rest are in the CSV and JSON. */
 export const FRONT_ROWS = 25;

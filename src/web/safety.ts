@@ -1,2 +1,2 @@
-/** The caution every result page and every export carries, word for word (one source: the report). */
-export { SAFETY_CAUTION } from '../report/study-markdown.ts';
+/** The caution every result page and every export carries, word for word (one source: report/caution.ts). */
+export { SAFETY_CAUTION } from '../report/caution.ts';

@@ -1,8 +1,9 @@
 /** The study's renderers: CSV (RFC 4180, injection-safe), Markdown design note, JSON. */
 import { describe, expect, it } from 'vitest';
+import { SAFETY_CAUTION } from '../../src/report/caution.ts';
 import { csvCell, neutraliseCell, renderStudyCsv, STUDY_CSV_COLUMNS } from '../../src/report/study-csv.ts';
 import { renderStudyJson } from '../../src/report/study-json.ts';
-import { escapeMarkdown, renderStudyMarkdown, SAFETY_CAUTION } from '../../src/report/study-markdown.ts';
+import { escapeMarkdown, renderStudyMarkdown } from '../../src/report/study-markdown.ts';
 import { syntheticStudy, WORKED } from './synthetic.ts';
 
 /** A slow, obvious RFC 4180 reader (RFC 4180, "Common Format and MIME Type for CSV Files", IETF, 2005). */
