@@ -9,6 +9,10 @@
  *    ripple ratio with the drops now known, then choose every part from the worst corner (voltage
  *    class from peak voltage, MOSFET die for least loss, capacitor banks from the ripple limits and
  *    RMS current, magnetics by area product). The second pass sees the drops of the first.
+ * 3. A check with the final parts: an inductor that misses its ripple ratio by more than 1 % either way
+ *    (a corner of a mode-changing stage that the final drops moved across a region edge) is re-aimed
+ *    and the parts sized again, at most three times; the last check only raises an inductance, so a
+ *    corner that keeps flipping between regions never leaves the ripple above its ratio.
  * Pinned values and parasitics are never overwritten.
  */
 import { dcBiasFactor, pickCeramicClass, sizeCeramicBank } from '../parts/capacitor.ts';
@@ -195,8 +199,42 @@ export function sizeDesign(
     reasons.length = 0;
     for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
   }
+
+  // The last pass set new drops, which can move a corner of a mode-changing stage across a region
+  // edge (a four-switch stage at a leg's duty limit): its ripple then follows another law and the
+  // ratio is missed. Check with the final parts; while an inductor misses its ratio by more than
+  // RIPPLE_MISS either way, re-aim it and size again. Should the corner keep flipping between regions,
+  // the last check keeps the larger inductance, so the design never exceeds its ripple ratio.
+  for (let extra = 0; extra <= EXTRA_PASSES; extra++) {
+    const last = extra === EXTRA_PASSES;
+    const e = envelope(topology, d, corners, w, buffers);
+    let moved = false;
+    for (let k = 0; k < d.parts.length; k++) {
+      const p = d.parts[k];
+      if (comps[k].sizing.kind === 'inductor' && settable(p, 'value') && e.iPp[k] > 0) {
+        const aimed = (p.value * e.iPp[k]) / (d.params.ripple * Math.max(e.iAvg[k], 1e-9));
+        const miss = aimed / p.value - 1;
+        if (miss > RIPPLE_MISS || (!last && miss < -RIPPLE_MISS)) {
+          p.value = aimed;
+          moved = true;
+        }
+      }
+    }
+    if (!moved) break;
+    for (let k = 0; k < d.parts.length; k++) {
+      const rule = comps[k].sizing;
+      if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
+        d.parts[k].value = partByName(d, rule.of).value;
+    }
+    reasons.length = 0;
+    for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
+  }
   return reasons;
 }
+
+/** Ripple-ratio miss (relative) that triggers a re-aim after the sizing passes, and how many re-aims. */
+const RIPPLE_MISS = 0.01;
+const EXTRA_PASSES = 3;
 
 function partByName(d: Design, name: string): PartDesign {
   const p = d.parts.find((x) => x.name === name);
