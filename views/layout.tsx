@@ -22,6 +22,7 @@ export const Layout: FC<{ title: string; children?: Child; wide?: boolean; refre
       {refreshSeconds !== undefined ? <meta http-equiv="refresh" content={String(refreshSeconds)} /> : null}
       <title>{`${title} · Straddle`}</title>
       <link rel="stylesheet" href="/static/app.css" />
+      <link rel="icon" href="/static/icon.svg" type="image/svg+xml" />
       <script src="/static/htmx.min.js" defer></script>
     </head>
     <body class={wide ? 'wide' : undefined}>

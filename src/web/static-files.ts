@@ -1,6 +1,6 @@
 /**
  * The few static files the pages use, read once at start-up: htmx from its installed package (never a
- * CDN), our stylesheet and script. Served with a long cache lifetime and nosniff.
+ * CDN), our stylesheet and tab icon. Served with a long cache lifetime and nosniff.
  */
 import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
@@ -20,6 +20,8 @@ function load(): Map<string, StaticFile> {
   return new Map([
     ['htmx.min.js', { body: readFileSync(htmx, 'utf8'), type: 'text/javascript; charset=utf-8' }],
     ['app.css', { body: readFileSync(here('app.css'), 'utf8'), type: 'text/css; charset=utf-8' }],
+    // the tab icon: an input swinging across the output rail (our own drawing)
+    ['icon.svg', { body: readFileSync(here('icon.svg'), 'utf8'), type: 'image/svg+xml' }],
   ]);
 }
 
@@ -33,5 +35,7 @@ export function staticRoutes(): Hono {
     c.header('Cache-Control', 'public, max-age=3600');
     return c.body(file.body);
   });
+  // browsers ask for this path whatever the page links; answer with the icon rather than a 404
+  app.get('/favicon.ico', (c) => c.redirect('/static/icon.svg', 301));
   return app;
 }

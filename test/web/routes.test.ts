@@ -283,4 +283,14 @@ describe('errors and safety', () => {
     expect((await app.request('/static/app.css')).status).toBe(200);
     expect((await app.request('/static/../package.json')).status).toBe(404);
   });
+
+  it('gives the tab an icon of its own and answers /favicon.ico with it', async () => {
+    const icon = await app.request('/static/icon.svg');
+    expect(icon.status).toBe(200);
+    expect(icon.headers.get('content-type')).toBe('image/svg+xml');
+    const legacy = await app.request('/favicon.ico');
+    expect(legacy.status).toBe(301);
+    expect(legacy.headers.get('location')).toBe('/static/icon.svg');
+    expect(await (await app.request('/')).text()).toContain('href="/static/icon.svg"');
+  });
 });
