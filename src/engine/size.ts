@@ -191,13 +191,7 @@ export function sizeDesign(
         p.value = (p.value * e.iPp[k]) / (d.params.ripple * Math.max(e.iAvg[k], 1e-9));
       }
     }
-    for (let k = 0; k < d.parts.length; k++) {
-      const rule = comps[k].sizing;
-      if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
-        d.parts[k].value = partByName(d, rule.of).value;
-    }
-    reasons.length = 0;
-    for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
+    sizeParts(d, spec, tech, e, reasons);
   }
 
   // The last pass set new drops, which can move a corner of a mode-changing stage across a region
@@ -221,13 +215,7 @@ export function sizeDesign(
       }
     }
     if (!moved) break;
-    for (let k = 0; k < d.parts.length; k++) {
-      const rule = comps[k].sizing;
-      if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
-        d.parts[k].value = partByName(d, rule.of).value;
-    }
-    reasons.length = 0;
-    for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
+    sizeParts(d, spec, tech, e, reasons);
   }
   return reasons;
 }
@@ -235,6 +223,21 @@ export function sizeDesign(
 /** Ripple-ratio miss (relative) that triggers a re-aim after the sizing passes, and how many re-aims. */
 const RIPPLE_MISS = 0.01;
 const EXTRA_PASSES = 3;
+
+/**
+ * Every part from the envelope: coupled windings follow their first winding's inductance, then each
+ * part by its rule (reasons replaced by this sizing's).
+ */
+function sizeParts(d: Design, spec: RailSpec, tech: Technology, e: Envelope, reasons: Reason[]): void {
+  const comps = d.components;
+  for (let k = 0; k < d.parts.length; k++) {
+    const rule = comps[k].sizing;
+    if (rule.kind === 'winding' && settable(d.parts[k], 'value'))
+      d.parts[k].value = partByName(d, rule.of).value;
+  }
+  reasons.length = 0;
+  for (let k = 0; k < d.parts.length; k++) sizePart(d, spec, tech, comps[k].sizing, k, e, reasons);
+}
 
 function partByName(d: Design, name: string): PartDesign {
   const p = d.parts.find((x) => x.name === name);

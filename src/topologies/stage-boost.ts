@@ -21,8 +21,8 @@
  * resistive drops are left out of the DCM duty (they are small at the light loads where DCM occurs).
  */
 import type { Design } from '../engine/design.ts';
-import { type Fractions3, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
-import { newDrops, readDrops, type StageSlots, type StageState } from './stage.ts';
+import { type Fractions3, newTriangle, type WaveSet } from '../engine/wave.ts';
+import { newDrops, readDrops, type StageSlots, type StageState, writeStageBranches } from './stage.ts';
 
 const drops = newDrops();
 const f3: Fractions3 = { d0: 0, d1: 0, d2: 0 };
@@ -79,7 +79,7 @@ export function operateBoostStage(d: Design, slots: StageSlots, w: WaveSet, st: 
       tri.lo = 0;
       tri.hi = ipk;
       w.setTriangleIdle(slots.inductor, tri, f3);
-      writeBranches(slots, w);
+      writeStageBranches(slots, w);
       w.iOnA[slots.sw] = 0;
       w.iOffA[slots.sw] = ipk;
       w.vSwV[slots.sw] = Math.abs(a);
@@ -105,7 +105,7 @@ export function operateBoostStage(d: Design, slots: StageSlots, w: WaveSet, st: 
   tri.lo = lo;
   tri.hi = hi;
   w.setTriangle(slots.inductor, tri);
-  writeBranches(slots, w);
+  writeStageBranches(slots, w);
   // the switch turns on at the valley and off at the peak against Vo + Vd; the rectifier commutates
   // the same two currents (dead times of a synchronous rectifier) and blocks Vo
   w.iOnA[slots.sw] = lo;
@@ -118,14 +118,4 @@ export function operateBoostStage(d: Design, slots: StageSlots, w: WaveSet, st: 
   w.vPeakV[slots.sw] = Math.abs(voV + vd);
   w.vPeakV[slots.rect] = Math.abs(voV);
   w.vPeakV[slots.inductor] = Math.max(Math.abs(vOn), Math.abs(voV + vd - vOn));
-}
-
-/**
- * The stage's switch (and sense resistor) carries the inductor current while on, the rectifier while
- * off: both masked from the inductor's waveform (CCM and DCM alike; the parts' other fields stay zero).
- */
-function writeBranches(slots: StageSlots, w: WaveSet): void {
-  w.combine(slots.sw, slots.inductor, 1, SEGMENT_0, slots.inductor, 0, 0);
-  w.copy(slots.sense, slots.sw);
-  w.combine(slots.rect, slots.inductor, 1, SEGMENT_1, slots.inductor, 0, 0);
 }

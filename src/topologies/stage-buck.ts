@@ -20,8 +20,8 @@
  * resistive drops are left out of the DCM duty (they are small at the light loads where DCM occurs).
  */
 import type { Design } from '../engine/design.ts';
-import { type Fractions3, newTriangle, SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
-import { newDrops, readDrops, type StageSlots, type StageState } from './stage.ts';
+import { type Fractions3, newTriangle, type WaveSet } from '../engine/wave.ts';
+import { newDrops, readDrops, type StageSlots, type StageState, writeStageBranches } from './stage.ts';
 
 const drops = newDrops();
 const f3: Fractions3 = { d0: 0, d1: 0, d2: 0 };
@@ -72,7 +72,7 @@ export function operateBuckStage(d: Design, slots: StageSlots, w: WaveSet, st: S
       tri.lo = 0;
       tri.hi = ipk;
       w.setTriangleIdle(slots.inductor, tri, f3);
-      writeBranches(slots, w);
+      writeStageBranches(slots, w);
       w.iOnA[slots.sw] = 0;
       w.iOffA[slots.sw] = ipk;
       w.vSwV[slots.sw] = Math.abs(viV + vf);
@@ -97,7 +97,7 @@ export function operateBuckStage(d: Design, slots: StageSlots, w: WaveSet, st: S
   tri.lo = lo;
   tri.hi = hi;
   w.setTriangle(slots.inductor, tri);
-  writeBranches(slots, w);
+  writeStageBranches(slots, w);
   // the high-side switch turns on at the valley and off at the peak, swinging the switch node from
   // −Vd to Vi; the rectifier commutates the same two currents and blocks Vi
   w.iOnA[slots.sw] = lo;
@@ -109,14 +109,4 @@ export function operateBuckStage(d: Design, slots: StageSlots, w: WaveSet, st: S
   w.vPeakV[slots.sw] = Math.abs(viV + vd);
   w.vPeakV[slots.rect] = Math.abs(viV);
   w.vPeakV[slots.inductor] = Math.max(Math.abs(vOn), Math.abs(voV + vd + ioA * rl));
-}
-
-/**
- * The stage's switch (and sense resistor) carries the inductor current while on, the rectifier while
- * off: both masked from the inductor's waveform (CCM and DCM alike; the parts' other fields stay zero).
- */
-function writeBranches(slots: StageSlots, w: WaveSet): void {
-  w.combine(slots.sw, slots.inductor, 1, SEGMENT_0, slots.inductor, 0, 0);
-  w.copy(slots.sense, slots.sw);
-  w.combine(slots.rect, slots.inductor, 1, SEGMENT_1, slots.inductor, 0, 0);
 }

@@ -4,6 +4,7 @@
  * the waveforms of their own four parts; the cascade combines stage waveforms for the capacitors.
  */
 import type { Design } from '../engine/design.ts';
+import { SEGMENT_0, SEGMENT_1, type WaveSet } from '../engine/wave.ts';
 
 /** Slots (indices into the design's parts) of one stage's switch, sense resistor, rectifier, inductor. */
 export interface StageSlots {
@@ -78,4 +79,14 @@ export function readDrops(d: Design, slots: StageSlots, out: StageDrops): void {
 
 export function newDrops(): StageDrops {
   return { rqOhm: 0, vfV: 0, rrOhm: 0, rlOhm: 0, diode: true };
+}
+
+/**
+ * A stage's switch (and sense resistor) carries the inductor current while on, its rectifier while off:
+ * both masked from the inductor's waveform (CCM and DCM alike; the parts' other fields stay zero).
+ */
+export function writeStageBranches(slots: StageSlots, w: WaveSet): void {
+  w.combine(slots.sw, slots.inductor, 1, SEGMENT_0, slots.inductor, 0, 0);
+  w.copy(slots.sense, slots.sw);
+  w.combine(slots.rect, slots.inductor, 1, SEGMENT_1, slots.inductor, 0, 0);
 }
