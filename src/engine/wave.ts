@@ -216,6 +216,33 @@ export class WaveSet {
   }
 
   /**
+   * n straight segments gated by kind: segment j carries sign·(a[j] → b[j]) when bit kind[j] of `mask`
+   * is set, and nothing otherwise (a branch that conducts the stored current in some intervals only);
+   * fractions f. sign is ±1. One pass, no floating-point argument (see combine).
+   */
+  setGated(
+    k: number,
+    n: number,
+    f: Float64Array,
+    a: Float64Array,
+    b: Float64Array,
+    kind: Int8Array,
+    mask: number,
+    sign: number,
+  ): void {
+    const o = k * WAVE_STRIDE;
+    const w = this.data;
+    w[o] = n;
+    for (let j = 0; j < n; j++) {
+      const x = (mask >> kind[j]) & 1 ? sign : 0;
+      w[o + F + j] = f[j];
+      w[o + A + j] = x * a[j];
+      w[o + B + j] = x * b[j];
+      w[o + W + j] = 0;
+    }
+  }
+
+  /**
    * Take component k's average out of it: what a capacitor carries of a current whose DC flows
    * elsewhere (the same sum as average(), computed here so no number crosses a call).
    */

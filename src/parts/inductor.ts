@@ -118,15 +118,25 @@ export function igseInto(
     return;
   }
   const ki = igseKi(m);
-  // Σ fⱼ·|ΔBⱼ·fsw/fⱼ|^α = Σ exp(ln fⱼ + α·ln|ΔBⱼ·fsw/fⱼ|): one log and one exp per segment
+  // Σ fⱼ·|ΔBⱼ·fsw/fⱼ|^α = Σ exp(ln fⱼ + α·ln|ΔBⱼ·fsw/fⱼ|): one log and one exp per segment; for the
+  // usual α = 1.5 of power ferrites fⱼ·(x/fⱼ)^1.5 = x·√(x/fⱼ), a square root instead
   const a = m.alpha;
   let s = 0;
-  for (let j = 0; j < n; j++) {
-    const fj = f[j];
-    const x = Math.abs(dB[j] * fswHz);
-    if (fj <= 0 || x === 0) continue;
-    const lf = Math.log(fj);
-    s += Math.exp(lf + a * (Math.log(x) - lf));
+  if (a === 1.5) {
+    for (let j = 0; j < n; j++) {
+      const fj = f[j];
+      const x = Math.abs(dB[j] * fswHz);
+      if (fj <= 0 || x === 0) continue;
+      s += x * Math.sqrt(x / fj);
+    }
+  } else {
+    for (let j = 0; j < n; j++) {
+      const fj = f[j];
+      const x = Math.abs(dB[j] * fswHz);
+      if (fj <= 0 || x === 0) continue;
+      const lf = Math.log(fj);
+      s += Math.exp(lf + a * (Math.log(x) - lf));
+    }
   }
   io[IGSE_PV] = ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
 }

@@ -110,18 +110,6 @@ function compactSegments(): void {
   }
 }
 
-/** The inductor current over the compacted intervals (A). */
-function writeInductor(w: WaveSet): void {
-  w.setSegments(L1, nSeg, scratchF, scratchA, scratchB);
-}
-
-/** WaveSet.combine's segment mask of the compacted intervals whose kind is in `kinds` (a kind mask). */
-function segmentsOf(kinds: number): number {
-  let m = 0;
-  for (let j = 0; j < nSeg; j++) if ((kinds >> useKind[j]) & 1) m |= 1 << j;
-  return m;
-}
-
 /**
  * Switching edges of a branch: it switches when it conducts for part of the period only; it turns on at
  * the start of its first conducting interval and off at the end of its last (the masks are contiguous),
@@ -228,17 +216,17 @@ export function operateFourSwitch(d: Design, at: OperatingPoint, w: WaveSet, s: 
   s.iinA = iin;
   compactSegments();
   // every branch is iL where its switch conducts: the inductor written once, the rest masked from it
-  writeInductor(w);
-  w.copy(RS, L1);
-  w.combine(Q1, L1, 1, segmentsOf(ON_Q1), L1, 0, 0);
-  w.combine(R2, L1, 1, segmentsOf(ON_R2), L1, 0, 0);
-  w.combine(Q3, L1, 1, segmentsOf(ON_Q3), L1, 0, 0);
-  w.combine(R4, L1, 1, segmentsOf(ON_R4), L1, 0, 0);
+  w.setSegments(L1, nSeg, scratchF, scratchA, scratchB);
+  w.setSegments(RS, nSeg, scratchF, scratchA, scratchB);
+  w.setGated(Q1, nSeg, scratchF, scratchA, scratchB, useKind, ON_Q1, 1);
+  w.setGated(R2, nSeg, scratchF, scratchA, scratchB, useKind, ON_R2, 1);
+  w.setGated(Q3, nSeg, scratchF, scratchA, scratchB, useKind, ON_Q3, 1);
+  w.setGated(R4, nSeg, scratchF, scratchA, scratchB, useKind, ON_R4, 1);
   // Cin supplies the AC of Q1's current (the input carries its average); Cout takes Q4/D2's current
   // minus the load
-  w.combine(CIN, L1, -1, segmentsOf(ON_Q1), L1, 0, 0);
+  w.setGated(CIN, nSeg, scratchF, scratchA, scratchB, useKind, ON_Q1, -1);
   w.removeMean(CIN);
-  w.copy(COUT, R4);
+  w.setGated(COUT, nSeg, scratchF, scratchA, scratchB, useKind, ON_R4, 1);
   w.shift(COUT, -iout);
   w.setDc(U1, 0);
 

@@ -1,7 +1,7 @@
 /**
  * The WaveSet writers of the corner loop against their definitions, segment by segment (fast against
  * slow obvious): combine (two- and three-interval paths), copy, shift, removeMean, setTriangle,
- * setTriangleIdle, setSegments, and chargeSwingInto against chargeSwing. The definitions are the
+ * setTriangleIdle, setSegments, setGated, and chargeSwingInto against chargeSwing. The definitions are the
  * method comments in wave.ts; nothing here comes from outside the project except the arithmetic.
  */
 import fc from 'fast-check';
@@ -147,6 +147,28 @@ describe('WaveSet writers', () => {
       { f: 0.2, a: 0, b: 1, w: 0 },
       { f: 0.5, a: 1, b: 2, w: 0 },
       { f: 0.3, a: 2, b: 0, w: 0 },
+    ]);
+  });
+
+  it('setGated keeps the segments whose kind is in the mask, signed, and zeroes the rest', () => {
+    const w = new WaveSet(2);
+    const f = new Float64Array([0.2, 0.5, 0.3]);
+    const a = new Float64Array([0.5, 1, 2]);
+    const b = new Float64Array([1, 2, 0.5]);
+    // kinds 0, 1, 2 in order; mask 0b101 keeps kinds 0 and 2
+    const kind = new Int8Array([0, 1, 2]);
+    w.setBow(0, 1, 9); // a stale bow must be cleared
+    w.setGated(0, 3, f, a, b, kind, 0b101, 1);
+    expect(read(w, 0)).toEqual([
+      { f: 0.2, a: 0.5, b: 1, w: 0 },
+      { f: 0.5, a: 0, b: 0, w: 0 },
+      { f: 0.3, a: 2, b: 0.5, w: 0 },
+    ]);
+    // kinds out of order (compacted intervals), negated
+    w.setGated(1, 2, f, a, b, new Int8Array([2, 0]), 1 << 2, -1);
+    expect(read(w, 1)).toEqual([
+      { f: 0.2, a: -0.5, b: -1, w: 0 },
+      { f: 0.5, a: 0, b: 0, w: 0 },
     ]);
   });
 
