@@ -3,7 +3,9 @@
  * WORKED-EXAMPLES.md). Each example is rebuilt as a pinned design on the lossless `ideal` technology
  * at the example's single operating point, and every printed result is compared within the precision
  * its printed digits imply. Textbook buck and boost examples are checked on the four-switch
- * buck-boost in its buck and boost regions.
+ * buck-boost in its buck and boost regions, the Ćuk example on the Zeta (which shares every quantity it
+ * prints) and the separate-inductor SEPIC note on a 1:1 coupled pair at half the inductance; each
+ * example's notes give the reduction.
  */
 import { describe, it } from 'vitest';
 import { evaluateCandidate } from '../../src/engine/evaluate.ts';

