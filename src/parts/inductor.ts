@@ -15,6 +15,8 @@
  * For piecewise-linear flux this is ki·ΔB^(β−α)·Σⱼ fⱼ·|ΔBⱼ/(fⱼ·T)|^α. For the usual triangle (two
  * segments, ΔB₀ = −ΔB₁ = ΔB) it reduces to ki·fsw^α·ΔB^β·(f₀^(1−α) + f₁^(1−α)).
  */
+
+import { POW_RESULT, POW_SLOTS, POW_X, type PowerLaw, powerLaw } from './power-law.ts';
 import type { CoreMaterial, Technology } from './technology.ts';
 
 export interface InductorSize {
@@ -138,14 +140,28 @@ export function igseInto(
       s += Math.exp(lf + a * (Math.log(x) - lf));
     }
   }
-  io[IGSE_PV] = ki * Math.exp((m.beta - a) * Math.log(dBppT)) * s;
+  if (m !== sumMaterial) {
+    sumMaterial = m;
+    sumLaw = powerLaw(m.beta - a);
+  }
+  pw[POW_X] = dBppT;
+  sumLaw.into(pw);
+  io[IGSE_PV] = ki * pw[POW_RESULT] * s;
 }
+
+/** ΔB to a material's power (PowerLaw.into: numbers in a typed array, no boxing). */
+const pw = new Float64Array(POW_SLOTS);
+/** ΔB^(β−α) of the general sum, for the last material seen. */
+let sumMaterial: CoreMaterial | undefined;
+let sumLaw: PowerLaw = powerLaw(1);
 
 // Per-call constants of the triangle form, kept from the previous call: a study evaluates one design
 // (one material, one fsw) at several corners, and the windings of one corner share their fractions.
 // The numbers live in a typed array: a module-level `let` holding a double is a context slot, and
 // every store to it allocates a heap number (V8), which the corner loop must not do.
 let triMaterial: CoreMaterial | undefined;
+/** ΔB^β of triMaterial. */
+let triLaw: PowerLaw = powerLaw(1);
 const tri = new Float64Array([Number.NaN, 0, Number.NaN, Number.NaN, 0]);
 const TRI_FSW = 0;
 const TRI_KI_FSW = 1;
@@ -177,29 +193,39 @@ export function igseTriangleLossDensity(
 
 /** igseTriangleLossDensity with its numbers in io (IGSE_FSW, IGSE_DB, IGSE_F0, IGSE_F1 → IGSE_PV). */
 export function igseTriangleInto(m: CoreMaterial, io: Float64Array): void {
-  const fswHz = io[IGSE_FSW];
   const dBT = io[IGSE_DB];
-  const f0 = io[IGSE_F0];
-  const f1 = io[IGSE_F1];
   if (!(dBT > 0) || m.k === 0) {
     io[IGSE_PV] = 0;
     return;
   }
+  // the per-design and per-corner factors, refreshed out of line only when they change (this body stays
+  // small enough for the JIT to inline it into the corner loop)
+  if (m !== triMaterial || io[IGSE_FSW] !== tri[TRI_FSW]) refreshFrequencyTerm(m, io[IGSE_FSW]);
+  if (io[IGSE_F0] !== tri[TRI_F0] || io[IGSE_F1] !== tri[TRI_F1]) refreshShapeTerm(m, io);
+  pw[POW_X] = dBT;
+  triLaw.into(pw);
+  io[IGSE_PV] = tri[TRI_KI_FSW] * pw[POW_RESULT] * tri[TRI_SHAPE];
+}
+
+/** ki·fsw^α of the triangle form for material m at fswHz (fsw from io: no number argument). */
+function refreshFrequencyTerm(m: CoreMaterial, fswHz: number): void {
+  tri[TRI_KI_FSW] = igseKi(m) * Math.exp(m.alpha * Math.log(fswHz));
+  triMaterial = m;
+  triLaw = powerLaw(m.beta);
+  tri[TRI_FSW] = fswHz;
+  tri[TRI_F0] = Number.NaN;
+}
+
+/** f₀^(1−α) + f₁^(1−α) for the fractions in io. */
+function refreshShapeTerm(m: CoreMaterial, io: Float64Array): void {
+  const f0 = io[IGSE_F0];
+  const f1 = io[IGSE_F1];
   const a = m.alpha;
-  if (m !== triMaterial || fswHz !== tri[TRI_FSW]) {
-    tri[TRI_KI_FSW] = igseKi(m) * Math.exp(a * Math.log(fswHz));
-    triMaterial = m;
-    tri[TRI_FSW] = fswHz;
-    tri[TRI_F0] = Number.NaN;
-  }
-  if (f0 !== tri[TRI_F0] || f1 !== tri[TRI_F1]) {
-    // f^(1−α); for the usual α = 1.5 of power ferrites that is 1/√f, a square root instead of exp and log
-    tri[TRI_SHAPE] =
-      a === 1.5
-        ? 1 / Math.sqrt(f0) + 1 / Math.sqrt(f1)
-        : Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
-    tri[TRI_F0] = f0;
-    tri[TRI_F1] = f1;
-  }
-  io[IGSE_PV] = tri[TRI_KI_FSW] * Math.exp(m.beta * Math.log(dBT)) * tri[TRI_SHAPE];
+  // for the usual α = 1.5 of power ferrites f^(1−α) is 1/√f, a square root instead of exp and log
+  tri[TRI_SHAPE] =
+    a === 1.5
+      ? 1 / Math.sqrt(f0) + 1 / Math.sqrt(f1)
+      : Math.exp((1 - a) * Math.log(f0)) + Math.exp((1 - a) * Math.log(f1));
+  tri[TRI_F0] = f0;
+  tri[TRI_F1] = f1;
 }
