@@ -124,8 +124,8 @@ export function computeLosses(
       ms += f * ((a * a + a * b + b * b + 2 * bw * (a + b)) * THIRD + bw * bw * EIGHT_FIFTEENTHS);
       msm += f * m * m;
     }
-    const iR = Math.sqrt(ms);
-    const i2 = iR * iR;
+    // mean square current (A²): every loss here is linear in it, so no RMS (square root) is taken
+    const i2 = ms;
     switch (code) {
       case ROLE_SWITCH: {
         switchLoss(
@@ -137,7 +137,7 @@ export function computeLosses(
           tech.mosfet.gateCurrentA,
           fsw,
           vinV,
-          iR,
+          i2,
           iOn[k],
           iOff[k],
           vSw[k],
@@ -162,7 +162,7 @@ export function computeLosses(
           tech.mosfet.deadTimeS,
           fsw,
           vinV,
-          iR,
+          i2,
           iOn[k],
           iOff[k],
           vSw[k],
@@ -181,7 +181,7 @@ export function computeLosses(
       }
       case ROLE_DIODE: {
         const vfI = p.vfV * Math.abs(avg);
-        const rdI2 = p.rdOhm * iR * iR;
+        const rdI2 = p.rdOhm * i2;
         const v = vSw[k];
         const cj = 0.5 * p.cjF * v * v * fsw;
         cond += vfI;

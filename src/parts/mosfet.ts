@@ -3,7 +3,7 @@
  *
  * Ron = ronSpec·(1 + tc·(Tj − 25 °C)) / A, charges ∝ A (from memory: the usual scaling of trench
  * MOSFET figures of merit with die area). Loss at one operating point (common practice estimates):
- *   conduction  Irms² · Ron
+ *   conduction  Irms² · Ron (the loss functions take the mean square Irms² itself: no square root)
  *   overlap     ½ · Vsw · (Ion + Ioff) · tsw · fsw, with tsw = Qsw / Igate
  *   output charge  ½ · Qoss(V) · V · fsw, Qoss(V) = Qoss(rated) · √(V / Vrated) (junction-like Coss)
  *   gate        Qg · Vin · fsw (gate charge drawn from the input through the controller's regulator)
@@ -64,13 +64,13 @@ export function switchLoss(
   gateCurrentA: number,
   fswHz: number,
   vinV: number,
-  iRmsA: number,
+  iMeanSquareA2: number,
   iOnA: number,
   iOffA: number,
   vSwV: number,
   out: MosfetLoss,
 ): void {
-  out.conductionW = iRmsA * iRmsA * ronOhm;
+  out.conductionW = iMeanSquareA2 * ronOhm;
   out.gateW = vSwV > 0 ? qgC * vinV * fswHz : 0;
   if (vSwV > 0 && ratedV > 0) {
     const tsw = gateCurrentA > 0 ? qswC / gateCurrentA : 0;
@@ -96,13 +96,13 @@ export function syncLoss(
   deadTimeS: number,
   fswHz: number,
   vinV: number,
-  iRmsA: number,
+  iMeanSquareA2: number,
   iOnA: number,
   iOffA: number,
   vSwV: number,
   out: MosfetLoss,
 ): void {
-  out.conductionW = iRmsA * iRmsA * ronOhm + bodyVfV * (Math.abs(iOnA) + Math.abs(iOffA)) * deadTimeS * fswHz;
+  out.conductionW = iMeanSquareA2 * ronOhm + bodyVfV * (Math.abs(iOnA) + Math.abs(iOffA)) * deadTimeS * fswHz;
   out.gateW = vSwV > 0 ? qgC * vinV * fswHz : 0;
   out.switchingW = vSwV > 0 && ratedV > 0 ? 0.5 * qossC * Math.sqrt(vSwV / ratedV) * vSwV * fswHz : 0;
 }
