@@ -1,10 +1,13 @@
 /**
  * The web app, without listening (serve.ts listens; tests call app.request()). Middleware in order:
- * request log, security headers with a strict content security policy, body-size limit, CSRF check on
- * every POST; then the routes; then the 404 page and the error page (status and safe message only).
+ * request log, response compression (gzip or deflate when the client accepts it: a full study page is
+ * about half a megabyte of markup and inline SVG), security headers with a strict content security
+ * policy, body-size limit, CSRF check on every POST; then the routes; then the 404 page and the error
+ * page (status and safe message only).
  */
 import { Hono } from 'hono';
 import { bodyLimit } from 'hono/body-limit';
+import { compress } from 'hono/compress';
 import { csrf } from 'hono/csrf';
 import { secureHeaders } from 'hono/secure-headers';
 import type { Logger } from 'pino';
@@ -58,6 +61,7 @@ export function createApp(options: AppOptions = {}): Hono {
       'request',
     );
   });
+  app.use('*', compress());
   app.use('*', secureHeaders({ contentSecurityPolicy: CSP, referrerPolicy: 'same-origin' }));
   app.use(
     '*',

@@ -3,6 +3,7 @@
  * an htmx request, and every error path (422 with messages beside fields, 404, 500 without a stack,
  * CSRF refusal, body limit, security headers).
  */
+import { gunzipSync } from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { createApp } from '../../src/web/app.ts';
 import { demoFormValues, encodeSpec } from '../../src/web/spec-codec.ts';
@@ -263,6 +264,18 @@ describe('errors and safety', () => {
   it('refuses a body above the limit with 413', async () => {
     const res = await app.request('/study', form({ ...demo, name: 'x'.repeat(20_000) }));
     expect(res.status).toBe(413);
+  });
+
+  it('compresses a page for a client that accepts gzip, to the same markup', async () => {
+    const plain = await app.request(studyUrl);
+    const zipped = await app.request(studyUrl, { headers: { 'Accept-Encoding': 'gzip' } });
+    expect(plain.headers.get('content-encoding')).toBeNull();
+    expect(zipped.headers.get('content-encoding')).toBe('gzip');
+    const raw = new Uint8Array(await zipped.arrayBuffer());
+    const text = gunzipSync(raw).toString('utf8');
+    expect(text).toBe(await plain.text());
+    // markup and inline SVG compress well: a fifth of the size at most
+    expect(raw.byteLength).toBeLessThan(text.length / 5);
   });
 
   it('sends a content security policy allowing only our own scripts and styles, and the usual headers', async () => {
