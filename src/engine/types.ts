@@ -94,6 +94,7 @@ export interface CornerResult {
 }
 
 export type ReasonCode =
+  | 'period-too-short'
   | 'duty-below-min-on-time'
   | 'duty-above-max'
   | 'dcm-light-load'

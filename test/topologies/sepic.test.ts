@@ -102,6 +102,24 @@ describe('SEPIC (separate inductors)', () => {
     expect(r.value!).toBeGreaterThan(r.limit!);
   });
 
+  it('names a switching period too short for the controller once, with its times, not as duty limits beyond 0–100 %', () => {
+    // default preset: minimum on-time 100 ns, minimum off-time 150 ns (from memory, data/technology):
+    // no on-time window is left once the period is under 250 ns, i.e. above 4 MHz
+    const spec = railSpec({ switching: { minHz: 100e3, maxHz: 10e6 } });
+    const at5 = evaluateCandidate(spec, params('sepic', { fswHz: 5e6 }), tech);
+    expect(at5.feasible).toBe(false);
+    const r = at5.reasons.filter((x) => x.code === 'period-too-short');
+    expect(r).toHaveLength(1);
+    expectClose(r[0].value!, 200e-9, { rtol: 1e-12, what: 'period (s)' });
+    expectClose(r[0].limit!, 250e-9, { rtol: 1e-9, what: 'minimum on-time + off-time (s)' });
+    expect(r[0].message).toContain('5.00 MHz');
+    expect(r[0].message).toContain('200 ns period');
+    expect(at5.reasons.some((x) => x.code === 'duty-above-max' || x.code === 'duty-below-min-on-time')).toBe(false);
+    // just under the limit the window is open again and only ordinary duty limits can apply
+    const at3 = evaluateCandidate(spec, params('sepic', { fswHz: 3e6 }), tech);
+    expect(at3.reasons.some((x) => x.code === 'period-too-short')).toBe(false);
+  });
+
   it('warns that the undamped coupling network rings and names the damping remedy', () => {
     const ev = evaluateCandidate(railSpec(), params('sepic'), tech);
     const c = ev.cautions.find((x) => x.code === 'resonant-overshoot');
