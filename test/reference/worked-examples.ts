@@ -90,6 +90,31 @@ const SEPIC_NOTE =
 const HART =
   'Power Electronics, D. W. Hart, McGraw-Hill, 2011 (1st ed.; 2010 copyright), chapter 6 (DC-DC converters)';
 
+/** Rashid 4th ed., Example 5.8 (Ćuk): its data, used as printed for the Ćuk and, by the reduction in its notes, the Zeta. */
+const RASHID_4E_EX58_INPUTS = {
+  vinV: 12,
+  duty: 0.25,
+  fswHz: 25e3,
+  l1H: 180e-6,
+  csF: 200e-6,
+  l2H: 150e-6,
+  coutF: 220e-6,
+  ioutA: 1.25,
+};
+
+/** Example 5.8's printed results apart from the output voltage (whose sign depends on the topology). */
+const RASHID_4E_EX58_READINGS: Record<string, Reading> = {
+  iinAvgA: printed('0.42'),
+  il1AvgA: printed('0.42'),
+  il2AvgA: exact(1.25),
+  il1PpA: printed('0.67'),
+  // Exactly 62.5 mV by the formula; the transcription prints whole millivolts.
+  csVPpV: { value: 62.5e-3, rtol: 0.5 / 62.5 },
+  il2PpA: printed('0.8'),
+  coutVPpV: printed('18.18', 1e-3),
+  qPeakA: printed('2.400'),
+};
+
 export const WORKED_EXAMPLES: WorkedExample[] = [
   {
     id: 'rashid4-ex5.5-buck',
@@ -155,28 +180,8 @@ export const WORKED_EXAMPLES: WorkedExample[] = [
     topology: 'cuk',
     source: `${RASHID_4E}, Example 5.8 (Cuk regulator)`,
     provenance: 'published',
-    inputs: {
-      vinV: 12,
-      duty: 0.25,
-      fswHz: 25e3,
-      l1H: 180e-6,
-      csF: 200e-6,
-      l2H: 150e-6,
-      coutF: 220e-6,
-      ioutA: 1.25,
-    },
-    ...results({
-      voutV: printed('-4'),
-      iinAvgA: printed('0.42'),
-      il1AvgA: printed('0.42'),
-      il2AvgA: exact(1.25),
-      il1PpA: printed('0.67'),
-      // Exactly 62.5 mV by the formula; the transcription prints whole millivolts.
-      csVPpV: { value: 62.5e-3, rtol: 0.5 / 62.5 },
-      il2PpA: printed('0.8'),
-      coutVPpV: printed('18.18', 1e-3),
-      qPeakA: printed('2.400'),
-    }),
+    inputs: RASHID_4E_EX58_INPUTS,
+    ...results({ voutV: printed('-4'), ...RASHID_4E_EX58_READINGS }),
     notes:
       'Ideal: Va = −k·Vs/(1−k). Is = k·Ia/(1−k). ΔI1 = Vs·k/(f·L1); ΔI2 = Vs·k/(f·L2). ' +
       'ΔVc1 = Is(1−k)/(f·C1) (= Ia·k/(f·C1)); ΔVc2 = ΔI2/(8·f·C2) (buck-like output filter). ' +
@@ -187,27 +192,9 @@ export const WORKED_EXAMPLES: WorkedExample[] = [
     topology: 'zeta',
     source: `${RASHID_4E}, Example 5.8 (Cuk regulator), applied to the Zeta converter`,
     provenance: 'published',
-    inputs: {
-      vinV: 12,
-      duty: 0.25,
-      fswHz: 25e3,
-      l1H: 180e-6,
-      csF: 200e-6,
-      l2H: 150e-6,
-      coutF: 220e-6,
-      ioutA: 1.25,
-    },
-    ...results({
-      voutV: printed('4'),
-      iinAvgA: printed('0.42'),
-      il1AvgA: printed('0.42'),
-      il2AvgA: exact(1.25),
-      il1PpA: printed('0.67'),
-      csVPpV: { value: 62.5e-3, rtol: 0.5 / 62.5 },
-      il2PpA: printed('0.8'),
-      coutVPpV: printed('18.18', 1e-3),
-      qPeakA: printed('2.400'),
-    }),
+    inputs: RASHID_4E_EX58_INPUTS,
+    // the same printed results; the output is positive
+    ...results({ voutV: printed('4'), ...RASHID_4E_EX58_READINGS }),
     notes:
       'Common practice (no printed Zeta example found): the Zeta is the Cuk with its input and output ' +
       'stages swapped, and every quantity the example prints is the same at the same Vs, k, parts and load, ' +
