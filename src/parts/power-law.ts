@@ -12,8 +12,8 @@
  * table-driven reduction of P. T. P. Tang ("Table-driven implementation of the logarithm function in
  * IEEE floating-point arithmetic", ACM Trans. Math. Software 16(4), 1990) applied to the power directly.
  * The result agrees with Math.pow to a few units in the last place (the test checks 1e−14 relative over
- * the normal range); anything else (0, subnormal, ∞, NaN, x < 0, or a result outside 2^±1000, where
- * the table would overflow or lose digits) takes the library path.
+ * the normal range); anything else (0, subnormal, ∞, NaN, x < 0, or x or the result outside 2^±1000,
+ * where a table entry would overflow or lose digits) takes the library path.
  *
  * Numbers travel through a typed array (POW_X → POW_RESULT), not as an argument or a return value: V8
  * boxes a number passed to or returned from a call it leaves out of line, and the corner loop must not
@@ -45,14 +45,17 @@ const CELLS = 1 << CELL_BITS;
 /** 1/c_j for the left edge of cell j, c_j = 1 + j/256 (rounded; c_j is taken to be exactly its inverse). */
 const CELL_INV = new Float64Array(CELLS);
 for (let j = 0; j < CELLS; j++) CELL_INV[j] = 1 / (1 + j / CELLS);
-/** 2^(e·y) beyond 2^±1000 is left to the library (the table entry would overflow or lose digits). */
+/**
+ * x or x^y beyond 2^±1000 is left to the library (a table entry would overflow or lose digits, and near
+ * the top of the range 2^−e·(1/c_j) would be subnormal).
+ */
 const TWO_POW_LIMIT = 1000;
 
 const MIN_NORMAL = 2.2250738585072014e-308;
 
 /** x^y for one exponent y, x > 0. */
 export class PowerLaw {
-  /** 2^(e·y), index e − E_MIN; 0 where that leaves 2^±TWO_POW_LIMIT. */
+  /** 2^(e·y), index e − E_MIN; 0 where e or e·y leaves ±TWO_POW_LIMIT. */
   private readonly twoPow = new Float64Array(E_MAX - E_MIN + 1);
   /** c_j^y = (1/c_j)^−y. */
   private readonly cellPow = new Float64Array(CELLS);
@@ -68,7 +71,8 @@ export class PowerLaw {
     const y = exponent;
     // 2^e is exact, so each entry is Math.pow of exact inputs (within its own rounding)
     for (let e = E_MIN; e <= E_MAX; e++)
-      this.twoPow[e - E_MIN] = Math.abs(e * y) <= TWO_POW_LIMIT ? (2 ** e) ** y : 0;
+      this.twoPow[e - E_MIN] =
+        Math.abs(e) <= TWO_POW_LIMIT && Math.abs(e * y) <= TWO_POW_LIMIT ? (2 ** e) ** y : 0;
     for (let j = 0; j < CELLS; j++) this.cellPow[j] = CELL_INV[j] ** -y;
     this.c1 = y;
     this.c2 = (this.c1 * (y - 1)) / 2;
