@@ -51,9 +51,14 @@ export const U1 = 8;
 export interface CouplingPoint {
   vinV: number;
   ioutA: number;
-  /** Voltages the switch and the rectifier switch (V), set before writeCommonWaves. */
+  /**
+   * Voltages the switch and the rectifier switch (V), the coupling capacitor's DC voltage and the output
+   * magnitude (V), set before writeCommonWaves.
+   */
   vQ1SwV: number;
   vRectSwV: number;
+  vcsV: number;
+  voV: number;
   /** Averages of iL1 and of the switch current (A), written by writeCommonWaves. */
   il1AvgA: number;
   iswAvgA: number;
@@ -85,6 +90,8 @@ export function newCouplingPoint(): CouplingPoint {
     ioutA: 0,
     vQ1SwV: 0,
     vRectSwV: 0,
+    vcsV: 0,
+    voV: 0,
     il1AvgA: 0,
     iswAvgA: 0,
     mode: 'ccm',
@@ -184,8 +191,10 @@ export function solveCouplingNetwork(d: Design, pt: CouplingPoint): void {
 /**
  * Waveforms common to the Ćuk and Zeta: L1 (positive into the switch node side), L2 (positive towards the
  * load), the switch, its sense resistor, the rectifier, and the output capacitor, which takes L2's ripple
- * (L2 feeds the output continuously), with the switching edges (pt.vQ1SwV, pt.vRectSwV: voltages
- * switched, V). Writes the averages of iL1 and of the switch current (A) to pt.il1AvgA, pt.iswAvgA.
+ * (L2 feeds the output continuously), the controller's supply, the switching edges and every part's
+ * peak and DC voltage (from pt.vQ1SwV, pt.vRectSwV, pt.vcsV, pt.voV and the winding voltages). Writes
+ * the averages of iL1 and of the switch current (A) to pt.il1AvgA, pt.iswAvgA. The topology adds Cs and
+ * Cin, whose currents differ between the Ćuk and the Zeta.
  */
 export function writeCommonWaves(pt: CouplingPoint, w: WaveSet): void {
   if (pt.mode === 'ccm') {
@@ -228,4 +237,19 @@ export function writeCommonWaves(pt: CouplingPoint, w: WaveSet): void {
   w.combine(RECT, L1, 1, SEGMENT_1, L2, 1, SEGMENT_1);
   w.copy(COUT, L2);
   w.shift(COUT, -pt.ioutA);
+  w.setDc(U1, 0);
+  // peak and DC voltages: the switch and rectifier block what they switch, each winding sees vOn while
+  // Q1 conducts and its off-state voltage otherwise
+  w.vPeakV[Q1] = Math.abs(pt.vQ1SwV);
+  w.vPeakV[RECT] = Math.abs(pt.vRectSwV);
+  w.vPeakV[L1] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v1OffV));
+  w.vPeakV[L2] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v2OffV));
+  w.vPeakV[CS] = Math.abs(pt.vcsV);
+  w.vDcV[CS] = pt.vcsV;
+  w.vPeakV[CIN] = Math.abs(pt.vinV);
+  w.vDcV[CIN] = pt.vinV;
+  w.vPeakV[COUT] = Math.abs(pt.voV);
+  w.vDcV[COUT] = pt.voV;
+  w.vPeakV[U1] = Math.abs(pt.vinV);
+  w.vDcV[U1] = pt.vinV;
 }

@@ -29,7 +29,7 @@ import { newCouplingPoint, solveCouplingNetwork, writeCommonWaves } from './coup
 import type { ComponentSpec, OperatingPoint, OperatingScalars, Topology } from './topology.ts';
 
 // Slot numbers read once (an imported binding compiled to CommonJS is a getter on every read).
-const { CIN, COUT, CS, L1, L2, Q1, RECT, RS, U1 } = net;
+const { CIN, CS, L1, L2, Q1, RS } = net;
 
 function components(rect: RectifierKind): ComponentSpec[] {
   return [
@@ -110,6 +110,8 @@ function operate(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars)
 
   pt.vQ1SwV = vQ1;
   pt.vRectSwV = vRect;
+  pt.vcsV = vcs;
+  pt.voV = vo;
   writeCommonWaves(pt, w);
   // the input current is the switch current (pulsating); Cin supplies its ripple
   const iin = pt.iswAvgA;
@@ -122,19 +124,6 @@ function operate(d: Design, at: OperatingPoint, w: WaveSet, s: OperatingScalars)
   w.combine(CS, L2, 1, SEGMENT_0, L1, -1, ALL_SEGMENTS & ~SEGMENT_0);
   w.copy(CIN, Q1);
   w.shift(CIN, -iin);
-  w.setDc(U1, 0);
-  w.vPeakV[Q1] = Math.abs(vQ1);
-  w.vPeakV[RECT] = Math.abs(vRect);
-  w.vPeakV[L1] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v1OffV));
-  w.vPeakV[L2] = Math.max(Math.abs(pt.vOnV), Math.abs(pt.v2OffV));
-  w.vPeakV[CS] = Math.abs(vcs);
-  w.vDcV[CS] = vcs;
-  w.vPeakV[CIN] = Math.abs(vin);
-  w.vDcV[CIN] = vin;
-  w.vPeakV[COUT] = Math.abs(vo);
-  w.vDcV[COUT] = vo;
-  w.vPeakV[U1] = Math.abs(vin);
-  w.vDcV[U1] = vin;
 }
 
 function cautions(d: Design, spec: RailSpec, nominal: OperatingScalars): Caution[] {
